@@ -1,0 +1,65 @@
+#!/usr/bin/env node
+// `npm test`: the same setup as npm start, on a throw-away MariaDB instance (temporary data folder, free
+// ports), so it never collides with a running `npm start`; then the whole suite (unit, components, API on
+// the real database, browser tests in Debian's Chromium); then it stops what it started.
+// Extra arguments go to vitest, e.g. `npm test -- --project api`.
+import { mkdtempSync, rmSync, mkdirSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { buildClient, root, setUp } from './lib/setup.mjs';
+import { ensureDependencies } from './lib/deps.mjs';
+import { secret } from './lib/mariadb.mjs';
+import { aptInstall, fail, freePort, run, say, spawnChild, which } from './lib/sh.mjs';
+
+// Static checks first: they need no database and fail in seconds.
+ensureDependencies(root);
+// LOFTBENCH_SKIP_STATIC=1 skips them for a quick local loop; CI never sets it.
+if (!process.env.LOFTBENCH_SKIP_STATIC) try {
+  say('Typechecking (tsc --noEmit)...');
+  run(process.execPath, ['node_modules/typescript/bin/tsc', '--noEmit', '-p', 'tsconfig.json'], { cwd: root });
+  say('Linting, including the direction of imports (eslint)...');
+  run(process.execPath, ['node_modules/eslint/bin/eslint.js', '.'], { cwd: root });
+} catch (error) {
+  fail(`Static checks failed: ${error.message}`);
+}
+
+const dataRoot = mkdtempSync(path.join(os.tmpdir(), 'loftbench-test-'));
+const dbPort = await freePort();
+const { env, stop } = await setUp({
+  dataRoot,
+  dbPort,
+  database: 'loftbench_test',
+  dbPassword: secret(),
+  sessionSecret: secret(32),
+  mode: 'test',
+  // The browser tests sign in as a demo account, as a newcomer would.
+  seedDemo: true,
+});
+
+const cleanUp = async () => {
+  await stop();
+  rmSync(dataRoot, { recursive: true, force: true });
+};
+
+if (!which('chromium')) aptInstall(['chromium'], 'Chromium (for the browser tests)');
+const clientDir = path.join(dataRoot, 'client');
+buildClient(clientDir, env);
+const outputDir = path.join(root, 'test-output');
+mkdirSync(outputDir, { recursive: true });
+
+say(`Running the test suite (MariaDB on 127.0.0.1:${dbPort}, data in ${dataRoot})`);
+const tests = spawnChild(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {
+  cwd: root,
+  env: { ...env, LOFTBENCH_CLIENT_DIR: clientDir, LOFTBENCH_TEST_OUTPUT: outputDir, LOFTBENCH_CHROMIUM: which('chromium') },
+});
+let interrupted = false;
+const onSignal = () => {
+  interrupted = true;
+  tests.child.kill('SIGTERM');
+};
+process.on('SIGINT', onSignal);
+process.on('SIGTERM', onSignal);
+const code = await tests.exited;
+await cleanUp();
+say(interrupted ? 'Interrupted.' : code === 0 ? 'All tests passed.' : `Tests failed (exit ${code}).`);
+process.exit(interrupted ? 130 : code);

@@ -1,0 +1,78 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import pinoHttp from 'pino-http';
+import type { Sequelize } from 'sequelize';
+import type { Config } from './config';
+import { apiNotFound, errorHandler } from './errors';
+import { installAuth } from './http/auth';
+import { originCheck } from './http/csrf';
+import { initModels } from './models';
+import { registerAuthRoutes } from './routes/auth';
+import { registerCrewRoutes } from './routes/crew';
+import { registerHealthRoutes } from './routes/health';
+import { registerHullRoutes } from './routes/hulls';
+
+export interface AppDeps {
+  config: Config;
+  sequelize: Sequelize;
+}
+
+/**
+ * Build the Express app without listening: tests drive it with supertest, server/index.ts listens.
+ * Every API route is registered on the one `api` router with its full path, so the permission-matrix
+ * test can list them all from the router itself.
+ */
+export function createApp({ config, sequelize }: AppDeps): Express {
+  initModels(sequelize);
+  const app = express();
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          workerSrc: ["'self'", 'blob:'],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: config.trustProxy ? [] : null,
+        },
+      },
+      // Plain-HTTP on a workshop LAN is a supported set-up; HSTS only makes sense behind HTTPS.
+      strictTransportSecurity: config.trustProxy,
+    }),
+  );
+  app.use(pinoHttp({ level: config.logLevel, autoLogging: config.mode !== 'test' }));
+  app.use(express.json({ limit: '4mb' }));
+  installAuth(app, config, sequelize);
+  app.use(originCheck(config));
+
+  const api = express.Router();
+  registerHealthRoutes(api, sequelize);
+  registerAuthRoutes(api);
+  registerHullRoutes(api);
+  registerCrewRoutes(api);
+  app.use(api);
+  app.use('/api', apiNotFound);
+
+  if (config.clientDir && existsSync(path.join(config.clientDir, 'index.html'))) {
+    const clientDir = path.resolve(config.clientDir);
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: any other GET that wants a page gets the app.
+    app.use((req, res, next) => {
+      if (req.method !== 'GET' || !req.accepts('html')) return next();
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,96 @@
+import type { Express, RequestHandler } from 'express';
+import session from 'express-session';
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import connectSessionSequelize from 'connect-session-sequelize';
+import type { Sequelize } from 'sequelize';
+import type { Config } from '../config';
+import { AppError } from '../errors';
+import { userById, userByCredentials } from '../services/users';
+import type { SessionUser } from '../../shared/api/auth';
+
+const SequelizeStore = connectSessionSequelize(session.Store);
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends SessionUser {}
+  }
+}
+declare module 'express-session' {
+  interface SessionData {
+    csrfToken?: string;
+  }
+}
+
+const TWO_WEEKS_MS = 14 * 24 * 3600 * 1000;
+
+/**
+ * Sessions in MariaDB (the `sessions` table made by a migration), passport-local with bcrypt-hashed
+ * passwords. The cookie is httpOnly and SameSite=Lax, and Secure when the server sits behind HTTPS.
+ */
+export function installAuth(app: Express, config: Config, sequelize: Sequelize) {
+  const store = new SequelizeStore({
+    db: sequelize,
+    table: 'Session',
+    checkExpirationInterval: config.mode === 'test' ? 0 : 15 * 60 * 1000,
+    expiration: TWO_WEEKS_MS,
+    // Kept on the row so that every session of one account can be ended at once.
+    extendDefaultFields: (defaults: { data: string; expires: Date }, data: { passport?: { user?: number } }) => ({
+      ...defaults,
+      userId: data?.passport?.user ?? null,
+    }),
+  });
+
+  app.use(
+    session({
+      name: 'loftbench.sid',
+      secret: config.sessionSecret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: config.trustProxy,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.trustProxy ? 'auto' : false, maxAge: TWO_WEEKS_MS },
+    }),
+  );
+
+  passport.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
+      userByCredentials(email, password).then((user) => done(null, user ?? false), done);
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, user.id));
+  passport.deserializeUser((id: number, done) => {
+    userById(id).then((user) => done(null, user ?? false), done);
+  });
+  app.use(passport.session());
+  return { store };
+}
+
+/** Routes behind this need a signed-in person; anyone else gets 401. */
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.user) return next(new AppError(401, 'not_signed_in', 'Sign in to continue'));
+  next();
+};
+
+/** Sign a person in on this request: a new session id (no fixation), then the login. */
+export function signIn(req: Parameters<RequestHandler>[0], user: SessionUser): Promise<void> {
+  return new Promise((resolve, reject) => {
+    req.session.regenerate((err) => {
+      if (err) return reject(err);
+      req.login(user, (loginErr) => (loginErr ? reject(loginErr) : resolve()));
+    });
+  });
+}
+
+/** Sign out and destroy the session row. */
+export function signOut(req: Parameters<RequestHandler>[0]): Promise<void> {
+  return new Promise((resolve, reject) => {
+    req.logout((err) => {
+      if (err) return reject(err);
+      req.session.destroy((destroyErr) => (destroyErr ? reject(destroyErr) : resolve()));
+    });
+  });
+}

@@ -1,0 +1,15 @@
+import { StrictMode } from 'react';
+import { createRoot } from 'react-dom/client';
+import { AppProvider } from './app/provider';
+import { createAppRouter } from './app/router';
+import { createQueryClient } from './lib/query-client';
+import './styles.css';
+
+const root = document.getElementById('root');
+if (!root) throw new Error('index.html has no #root element');
+
+createRoot(root).render(
+  <StrictMode>
+    <AppProvider queryClient={createQueryClient()} router={createAppRouter()} />
+  </StrictMode>,
+);

@@ -1,0 +1,76 @@
+/**
+ * The permission matrix: one row for every route of the app, with the status each kind of caller gets.
+ * permission-matrix.test.ts reads the app's routes from Express's router and fails when a route has no
+ * row here (or a row names a route that no longer exists), then exercises every cell on the real server.
+ */
+export const callers = ['owner', 'builder', 'designer', 'helper', 'stranger', 'anonymous'] as const;
+export type Caller = (typeof callers)[number];
+
+/** What a row's request needs: a fresh hull with a full crew, and a spare account to add to it. */
+export interface MatrixFixture {
+  hullId: number;
+  helperUserId: number;
+  spareEmail: string;
+  caller: { email: string; password: string } | null;
+}
+
+export interface MatrixRow {
+  /** Path with real values filled in. */
+  path: (f: MatrixFixture) => string;
+  body?: (f: MatrixFixture) => unknown;
+  expect: Record<Caller, number>;
+  /** The request changes who the session belongs to (sign-in, sign-up, sign-out): use a fresh session. */
+  freshSession?: boolean;
+  /** Multipart upload: fields and files to attach instead of a JSON body. */
+  multipart?: (f: MatrixFixture) => { fields?: Record<string, string>; files?: { field: string; name: string; content: Buffer }[] };
+}
+
+const everyone = (status: number): Record<Caller, number> => ({ owner: status, builder: status, designer: status, helper: status, stranger: status, anonymous: status });
+const signedInOnly = (status: number): Record<Caller, number> => ({ ...everyone(status), anonymous: 401 });
+/** Crew members per capability; strangers 404 (the hull's existence is not revealed), anonymous 401. */
+const crew = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
+  owner: allowed.includes('owner') ? ok : 403,
+  builder: allowed.includes('builder') ? ok : 403,
+  designer: allowed.includes('designer') ? ok : 403,
+  helper: allowed.includes('helper') ? ok : 403,
+  stranger: 404,
+  anonymous: 401,
+});
+export const allCrew: Caller[] = ['owner', 'builder', 'designer', 'helper'];
+
+let counter = 0;
+const freshEmail = () => `matrix-${Date.now()}-${(counter += 1)}@example.test`;
+
+export const matrix: Record<string, MatrixRow> = {
+  'GET /api/health': { path: () => '/api/health', expect: everyone(200) },
+  'GET /api/session': { path: () => '/api/session', expect: everyone(200) },
+  'POST /api/auth/sign-up': {
+    path: () => '/api/auth/sign-up',
+    body: () => ({ email: freshEmail(), displayName: 'Matrix', password: 'matrix password' }),
+    expect: everyone(201),
+    freshSession: true,
+  },
+  'POST /api/auth/sign-in': {
+    path: () => '/api/auth/sign-in',
+    // Anonymous callers sign in as the spare account; members sign in again as themselves.
+    body: (f) => (f.caller ? { email: f.caller.email, password: f.caller.password } : { email: f.spareEmail, password: 'correct horse battery' }),
+    expect: everyone(200),
+    freshSession: true,
+  },
+  'POST /api/auth/sign-out': { path: () => '/api/auth/sign-out', expect: everyone(204), freshSession: true },
+  'GET /api/hulls': { path: () => '/api/hulls', expect: signedInOnly(200) },
+  'POST /api/hulls': { path: () => '/api/hulls', body: () => ({ name: 'Matrix hull', units: 'mm' }), expect: signedInOnly(201) },
+  'GET /api/hulls/:hullId': { path: (f) => `/api/hulls/${f.hullId}`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/crew': { path: (f) => `/api/hulls/${f.hullId}/crew`, expect: crew(200, allCrew) },
+  'POST /api/hulls/:hullId/crew': {
+    path: (f) => `/api/hulls/${f.hullId}/crew`,
+    body: (f) => ({ email: f.spareEmail, role: 'helper' }),
+    expect: crew(201, ['owner']),
+  },
+  'PATCH /api/hulls/:hullId/crew/:userId': {
+    path: (f) => `/api/hulls/${f.hullId}/crew/${f.helperUserId}`,
+    body: () => ({ role: 'builder' }),
+    expect: crew(200, ['owner']),
+  },
+  'DELETE /api/hulls/:hullId/crew/:userId': { path: (f) => `/api/hulls/${f.hullId}/crew/${f.helperUserId}`, expect: crew(204, ['owner']) },
+};
