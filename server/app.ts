@@ -13,6 +13,7 @@ import { registerAuthRoutes } from './routes/auth';
 import { registerCrewRoutes } from './routes/crew';
 import { registerHealthRoutes } from './routes/health';
 import { registerHullRoutes } from './routes/hulls';
+import { registerPlanRoutes } from './routes/plans';
 
 export interface AppDeps {
   config: Config;
@@ -60,6 +61,7 @@ export function createApp({ config, sequelize }: AppDeps): Express {
   registerAuthRoutes(api);
   registerHullRoutes(api);
   registerCrewRoutes(api);
+  registerPlanRoutes(api);
   app.use(api);
   app.use('/api', apiNotFound);
 

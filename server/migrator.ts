@@ -2,6 +2,7 @@ import type { QueryInterface, Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
 import * as m0001 from './migrations/0001-accounts-and-hulls';
 import * as m0002 from './migrations/0002-sessions';
+import * as m0003 from './migrations/0003-plan-revisions';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -10,6 +11,7 @@ export type Migration = MigrationFn<QueryInterface>;
 const migrations = [
   { name: '0001-accounts-and-hulls', ...m0001 },
   { name: '0002-sessions', ...m0002 },
+  { name: '0003-plan-revisions', ...m0003 },
 ];
 
 /** The umzug migrator over this database; applied migrations are recorded in the `migrations_applied` table. */

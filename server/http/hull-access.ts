@@ -1,12 +1,10 @@
 import type { RequestHandler, Response } from 'express';
-import type { Role } from '../../shared/api/hulls';
 import { AppError, forbidden, notFound } from '../errors';
 import { roleMay, type Capability } from '../services/access';
-import { hullRoleOf } from '../services/hulls';
+import { hullMembershipOf, type HullMembership } from '../services/hulls';
 
-export interface HullAccess {
+export interface HullAccess extends HullMembership {
   hullId: number;
-  role: Role;
 }
 
 /**
@@ -18,10 +16,10 @@ export function hullAccess(capability: Capability): RequestHandler {
     if (!req.user) throw new AppError(401, 'not_signed_in', 'Sign in to continue');
     const hullId = Number(req.params.hullId);
     if (!Number.isSafeInteger(hullId) || hullId <= 0) throw notFound('No such hull');
-    const role = await hullRoleOf(hullId, req.user.id);
-    if (!role) throw notFound('No such hull');
-    if (!roleMay(role, capability)) throw forbidden();
-    res.locals.hullAccess = { hullId, role } satisfies HullAccess;
+    const membership = await hullMembershipOf(hullId, req.user.id);
+    if (!membership) throw notFound('No such hull');
+    if (!roleMay(membership.role, capability)) throw forbidden();
+    res.locals.hullAccess = { hullId, ...membership } satisfies HullAccess;
     next();
   };
 }

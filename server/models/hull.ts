@@ -8,6 +8,8 @@ export class Hull extends Model<InferAttributes<Hull>, InferCreationAttributes<H
   declare notes: string;
   declare archivedAt: CreationOptional<Date | null>;
   declare createdBy: number;
+  /** The hull's current plan revision; null until the first save. */
+  declare latestRevisionId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -21,6 +23,7 @@ export function initHull(sequelize: Sequelize) {
       notes: { type: DataTypes.TEXT, allowNull: false },
       archivedAt: { type: DataTypes.DATE(3), allowNull: true },
       createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+      latestRevisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -87,8 +87,9 @@ export async function toApiError(response: Response): Promise<ApiError> {
   });
 }
 
+/** The server's answer to a missing or stale X-CSRF-Token (`missing_origin` when there was no Origin either). */
 function isCsrfFailure(error: ApiError): boolean {
-  return error.status === 403 && /csrf/i.test(error.code);
+  return error.status === 403 && /csrf|missing_origin/i.test(error.code);
 }
 
 async function send(method: Method, path: string, body: unknown, options: RequestOptions, csrfToken: string | null): Promise<Response> {

@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type TestAgent from 'supertest/lib/agent';
 import { HullMember } from '../../server/models';
 import { hullCreate } from '../../server/services/hulls';
+import { revisionSave } from '../../server/services/plans';
+import { demoPlan } from '../../server/seed/demo-plan';
 import { callers, matrix, type Caller, type MatrixFixture } from './permission-matrix';
 import { agentOf, makeUser, routesOf, signedIn, testServer, type TestServer } from './support';
 
@@ -25,8 +27,9 @@ async function fixture(caller: Caller): Promise<MatrixFixture> {
   for (const role of ['builder', 'designer', 'helper'] as const) {
     await HullMember.create({ hullId: hull.id, userId: people[role].id, role });
   }
+  const { revision } = await revisionSave({ hullId: hull.id, units: 'mm', authorId: people.owner.id, role: 'owner', baseRevisionId: null, plan: demoPlan() });
   const spare = await makeUser('spare');
-  return { hullId: hull.id, helperUserId: people.helper.id, spareEmail: spare.email, caller: caller === 'anonymous' ? null : people[caller] };
+  return { hullId: hull.id, revisionId: revision.id, helperUserId: people.helper.id, spareEmail: spare.email, caller: caller === 'anonymous' ? null : people[caller] };
 }
 
 describe('permission matrix', () => {

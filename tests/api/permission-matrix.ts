@@ -1,3 +1,5 @@
+import { demoPlan } from '../../server/seed/demo-plan';
+
 /**
  * The permission matrix: one row for every route of the app, with the status each kind of caller gets.
  * permission-matrix.test.ts reads the app's routes from Express's router and fails when a route has no
@@ -9,6 +11,8 @@ export type Caller = (typeof callers)[number];
 /** What a row's request needs: a fresh hull with a full crew, and a spare account to add to it. */
 export interface MatrixFixture {
   hullId: number;
+  /** The hull's one saved revision (the demo plan). */
+  revisionId: number;
   helperUserId: number;
   spareEmail: string;
   caller: { email: string; password: string } | null;
@@ -37,6 +41,16 @@ const crew = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
   anonymous: 401,
 });
 export const allCrew: Caller[] = ['owner', 'builder', 'designer', 'helper'];
+
+/** A change to the lines only, which owner, builder and designer may all make. */
+function linesChanged() {
+  const plan = demoPlan();
+  const keel = plan.lines.lines.find((l) => l.id === 'ln-keel')!;
+  (keel.cells as Record<string, { y: number; z: number }>)['st-4'] = { y: 0, z: 44 };
+  return plan;
+}
+const editors: Caller[] = ['owner', 'builder', 'designer'];
+const offsetsCsv = 'line,kind,fixed,angle,knuckle,A,B\nStation position,x,,,,0,600\nWL 200,waterline,200,,,300,350\n';
 
 let counter = 0;
 const freshEmail = () => `matrix-${Date.now()}-${(counter += 1)}@example.test`;
@@ -73,4 +87,42 @@ export const matrix: Record<string, MatrixRow> = {
     expect: crew(200, ['owner']),
   },
   'DELETE /api/hulls/:hullId/crew/:userId': { path: (f) => `/api/hulls/${f.hullId}/crew/${f.helperUserId}`, expect: crew(204, ['owner']) },
+
+  'PATCH /api/hulls/:hullId': { path: (f) => `/api/hulls/${f.hullId}`, body: () => ({ name: 'Renamed' }), expect: crew(200, ['owner', 'builder']) },
+  'POST /api/hulls/:hullId/archive': { path: (f) => `/api/hulls/${f.hullId}/archive`, expect: crew(200, ['owner']) },
+  'POST /api/hulls/:hullId/unarchive': { path: (f) => `/api/hulls/${f.hullId}/unarchive`, expect: crew(200, ['owner']) },
+  'POST /api/hulls/:hullId/copy': { path: (f) => `/api/hulls/${f.hullId}/copy`, body: () => ({ name: 'My copy' }), expect: crew(201, editors) },
+  'GET /api/hulls/:hullId/plan': { path: (f) => `/api/hulls/${f.hullId}/plan`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/plan/draft': { path: (f) => `/api/hulls/${f.hullId}/plan/draft`, expect: crew(200, allCrew) },
+  'PUT /api/hulls/:hullId/plan/draft': {
+    path: (f) => `/api/hulls/${f.hullId}/plan/draft`,
+    body: (f) => ({ baseRevisionId: f.revisionId, plan: linesChanged() }),
+    expect: crew(200, editors),
+  },
+  'DELETE /api/hulls/:hullId/plan/draft': { path: (f) => `/api/hulls/${f.hullId}/plan/draft`, expect: crew(204, editors) },
+  'GET /api/hulls/:hullId/plan/revisions': { path: (f) => `/api/hulls/${f.hullId}/plan/revisions`, expect: crew(200, allCrew) },
+  'POST /api/hulls/:hullId/plan/revisions': {
+    path: (f) => `/api/hulls/${f.hullId}/plan/revisions`,
+    body: (f) => ({ baseRevisionId: f.revisionId, plan: linesChanged() }),
+    expect: crew(201, editors),
+  },
+  'GET /api/hulls/:hullId/plan/revisions/:revisionId': { path: (f) => `/api/hulls/${f.hullId}/plan/revisions/${f.revisionId}`, expect: crew(200, allCrew) },
+  'POST /api/hulls/:hullId/plan/revisions/:revisionId/restore': {
+    path: (f) => `/api/hulls/${f.hullId}/plan/revisions/${f.revisionId}/restore`,
+    body: (f) => ({ baseRevisionId: f.revisionId }),
+    expect: crew(201, editors),
+  },
+  'GET /api/hulls/:hullId/plan/compare': { path: (f) => `/api/hulls/${f.hullId}/plan/compare?from=${f.revisionId}&to=${f.revisionId}`, expect: crew(200, allCrew) },
+  'POST /api/hulls/:hullId/plan/import/offsets': {
+    path: (f) => `/api/hulls/${f.hullId}/plan/import/offsets`,
+    multipart: (f) => ({ fields: { baseRevisionId: String(f.revisionId), unit: 'mm' }, files: [{ field: 'file', name: 'offsets.csv', content: Buffer.from(offsetsCsv) }] }),
+    expect: crew(201, editors),
+  },
+  'POST /api/hulls/:hullId/plan/import/json': {
+    path: (f) => `/api/hulls/${f.hullId}/plan/import/json`,
+    body: (f) => ({ baseRevisionId: f.revisionId, document: linesChanged() }),
+    expect: crew(201, editors),
+  },
+  'GET /api/hulls/:hullId/plan/export/offsets.csv': { path: (f) => `/api/hulls/${f.hullId}/plan/export/offsets.csv`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/plan/export/plan.json': { path: (f) => `/api/hulls/${f.hullId}/plan/export/plan.json`, expect: crew(200, allCrew) },
 };

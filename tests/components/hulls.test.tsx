@@ -9,7 +9,7 @@ describe('Hulls page', () => {
     stubApi({ 'GET /api/session': sessionOf(ann), 'GET /api/hulls': { body: { hulls: [] } } });
     renderApp('/hulls');
 
-    expect(await screen.findByRole('heading', { name: 'No hulls yet' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'No hull yet' })).toBeTruthy();
     expect(screen.getByText(/Ask its owner to add you to the crew/)).toBeTruthy();
     expect(screen.getByRole('link', { name: 'New hull' }).getAttribute('href')).toBe('/hulls/new');
   });
@@ -37,7 +37,7 @@ describe('Hulls page', () => {
     expect(links[0].textContent).toContain('11 Apr 2025');
     expect(links[1].textContent).toContain('Millimetres');
     expect(links[1].textContent).toContain('Helper');
-    expect(within(list).queryByRole('heading', { name: 'No hulls yet' })).toBeNull();
+    expect(within(list).queryByRole('heading', { name: 'No hull yet' })).toBeNull();
   });
 
   it('says so when the list cannot be loaded, and can try again', async () => {

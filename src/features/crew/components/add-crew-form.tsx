@@ -43,7 +43,7 @@ export function AddCrewForm({ hullId }: { hullId: number }) {
   return (
     <form noValidate onSubmit={onSubmit} aria-labelledby="add-crew-heading" className="flex flex-col gap-4">
       <h3 id="add-crew-heading" className="text-lg font-semibold">
-        Add someone to the crew
+        Add a person by e-mail
       </h3>
       <p className="text-muted">They need a Loftbench account already. Use the e-mail they signed up with.</p>
       {errors.root?.server && <Alert tone="error">{errors.root.server.message}</Alert>}

@@ -33,12 +33,12 @@ function RoleCell({ hullId, member, isYou }: Omit<RowProps, 'canManage'>) {
       value={shown}
       disabled={changeRole.isPending}
       error={changeRole.isError ? crewErrorText(changeRole.error) : undefined}
-      hint={isYou && member.role === 'owner' ? 'Your own role: as anything but Owner you can no longer change the crew.' : undefined}
+      hint={isYou && member.role === 'owner' ? 'This is you: give up Owner and you can no longer change the crew.' : undefined}
       onChange={(event) => {
         const role = event.target.value as Role;
         if (role !== member.role) changeRole.mutate({ userId: member.userId, role });
       }}
-      className="min-w-40"
+      className="min-w-40 max-w-60"
     >
       {roles.map((role) => (
         <option key={role} value={role}>
@@ -110,11 +110,11 @@ function RemoveCell({ hullId, member, isYou }: Omit<RowProps, 'canManage'>) {
 function CrewRow({ hullId, member, isYou, canManage }: RowProps) {
   return (
     <tr className="border-t border-rule align-top">
-      <th scope="row" className="px-4 py-3 text-left font-semibold">
+      <th scope="row" className="px-4 py-3 text-left font-semibold whitespace-nowrap">
         {member.displayName}
         {isYou && <span className="ml-2 font-normal text-muted">(you)</span>}
       </th>
-      <td className="px-4 py-3 break-all">{member.email}</td>
+      <td className="px-4 py-3 whitespace-nowrap">{member.email}</td>
       <td className="px-4 py-3">
         {canManage ? <RoleCell hullId={hullId} member={member} isYou={isYou} /> : roleLabels[member.role]}
       </td>
@@ -130,7 +130,7 @@ function CrewRow({ hullId, member, isYou, canManage }: RowProps) {
 /** The crew, one row per member; an owner gets a role select and a Remove button on each row. */
 export function CrewTable({ hullId, hullName, crew, canManage, currentUserId }: { hullId: number; hullName: string; crew: CrewMember[]; canManage: boolean; currentUserId: number | null }) {
   return (
-    <div className="overflow-x-auto rounded-xl border border-rule bg-surface" role="region" aria-label="Crew list" tabIndex={0}>
+    <div className="relative overflow-x-auto rounded-xl border border-rule bg-surface" role="region" aria-label="Crew list" tabIndex={0}>
       <table className="w-full min-w-[36rem] border-collapse">
         <caption className="sr-only">Crew of {hullName}</caption>
         <thead className="bg-paper text-left">

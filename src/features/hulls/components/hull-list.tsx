@@ -18,13 +18,13 @@ function HullCard({ hull }: { hull: HullSummary }) {
       >
         <div className="flex min-w-0 flex-col gap-2">
           <h2 className="text-xl font-semibold break-words text-ink group-hover:text-primary-strong">{hull.name}</h2>
-          <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-muted">
+          <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 whitespace-nowrap text-muted">
             <dt>Units</dt>
             <dd className="text-ink">{unitsLabels[hull.units]}</dd>
             <dt>Your role</dt>
             <dd className="text-ink">{roleLabels[hull.role]}</dd>
             <dt>Last change</dt>
-            <dd className="font-mono text-ink tabular-nums">
+            <dd className="font-mono whitespace-nowrap text-ink tabular-nums">
               <time dateTime={hull.updatedAt}>{formatWhen(hull.updatedAt)}</time>
             </dd>
           </dl>
@@ -39,7 +39,7 @@ function HullCard({ hull }: { hull: HullSummary }) {
 function EmptyHulls() {
   return (
     <Card className="flex flex-col items-start gap-4">
-      <h2 className="text-xl font-semibold">No hulls yet</h2>
+      <h2 className="text-xl font-semibold">No hull yet</h2>
       <p className="max-w-prose text-lg">
         A hull holds one boat's lines, its frames and the people who work on it. Press <strong>New hull</strong> to start one for the
         boat you are building, then enter its table of offsets and add your crew.

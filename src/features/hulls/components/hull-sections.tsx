@@ -3,11 +3,11 @@ import { Lock } from 'lucide-react';
 /** The parts of a hull's workspace still to come; listed so the crew can see the shape of the work, never with invented content. */
 const comingParts = ['Lines', 'Frames', 'Print shop', 'Downloads', 'Build log'] as const;
 
-/** The hull's parts as a row of tabs: Crew is the one built so far; the others say plainly they are not built yet. */
+/** The hull's parts as a row of tabs (wrapping on narrow screens): Crew is the one built so far; the others say plainly they are not built yet. */
 export function HullSections() {
   return (
-    <nav aria-label="Parts of this hull" className="-mx-1 overflow-x-auto pb-1">
-      <ul className="flex min-w-max gap-2 px-1">
+    <nav aria-label="Parts of this hull">
+      <ul className="flex flex-wrap gap-2">
         <li>
           <span aria-current="page" className="inline-flex min-h-12 items-center rounded-lg border-2 border-primary bg-primary px-4 font-semibold text-white">
             Crew

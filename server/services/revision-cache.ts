@@ -1,0 +1,38 @@
+/**
+ * Serialised plan documents by revision id. A revision never changes after it is written, so an entry can
+ * never be stale: the cache only saves the decompression and the JSON round trip on every read. Bounded
+ * by total size, least recently used out first.
+ */
+export interface CachedRevision {
+  /** RevisionSummary as JSON. */
+  metaJson: string;
+  /** The plan document as JSON. */
+  planJson: string;
+}
+
+const MAX_BYTES = 64 * 1024 * 1024;
+const entries = new Map<number, CachedRevision>();
+let bytes = 0;
+
+const sizeOf = (e: CachedRevision) => e.metaJson.length + e.planJson.length;
+
+export function revisionCacheGet(id: number): CachedRevision | undefined {
+  const hit = entries.get(id);
+  if (hit) {
+    // Re-insert: a Map iterates in insertion order, so the first key is the least recently used.
+    entries.delete(id);
+    entries.set(id, hit);
+  }
+  return hit;
+}
+
+export function revisionCachePut(id: number, entry: CachedRevision) {
+  if (entries.has(id)) return;
+  entries.set(id, entry);
+  bytes += sizeOf(entry);
+  for (const [key, old] of entries) {
+    if (bytes <= MAX_BYTES) break;
+    entries.delete(key);
+    bytes -= sizeOf(old);
+  }
+}
