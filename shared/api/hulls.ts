@@ -17,14 +17,14 @@ export const createHullSchema = z.object({
 });
 export type CreateHullInput = z.input<typeof createHullSchema>;
 
-/** Body of POST /api/hulls/:hullId/members: the owner adds an existing account by e-mail. */
+/** Body of POST /api/hulls/:hullId/crew: the owner adds an existing account by e-mail. */
 export const addMemberSchema = z.object({
   email: z.email({ message: 'Enter a valid e-mail address' }).max(254),
   role: roleSchema,
 });
 export type AddMemberInput = z.infer<typeof addMemberSchema>;
 
-/** Body of PATCH /api/hulls/:hullId/members/:userId. */
+/** Body of PATCH /api/hulls/:hullId/crew/:userId. */
 export const changeRoleSchema = z.object({ role: roleSchema });
 export type ChangeRoleInput = z.infer<typeof changeRoleSchema>;
 
