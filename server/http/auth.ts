@@ -6,10 +6,11 @@ import connectSessionSequelize from 'connect-session-sequelize';
 import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
 import { AppError } from '../errors';
-import { userById, userByCredentials } from '../services/users';
+import { userByCredentials, userByIdCached } from '../services/users';
 import type { SessionUser } from '../../shared/api/auth';
+import { cachedSessionStore } from './session-store';
 
-const SequelizeStore = connectSessionSequelize(session.Store);
+const SequelizeStore = cachedSessionStore(connectSessionSequelize(session.Store));
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -21,6 +22,8 @@ declare global {
 declare module 'express-session' {
   interface SessionData {
     csrfToken?: string;
+    /** The day (UTC, yyyy-mm-dd) the session was last extended. */
+    extendedOn?: string;
   }
 }
 
@@ -31,17 +34,21 @@ const TWO_WEEKS_MS = 14 * 24 * 3600 * 1000;
  * passwords. The cookie is httpOnly and SameSite=Lax, and Secure when the server sits behind HTTPS.
  */
 export function installAuth(app: Express, config: Config, sequelize: Sequelize) {
-  const store = new SequelizeStore({
+  // disableTouch is read by the store (lib/connect-session-sequelize.js) but missing from its types.
+  const storeOptions: ConstructorParameters<typeof SequelizeStore>[0] & { disableTouch: boolean } = {
     db: sequelize,
     table: 'Session',
     checkExpirationInterval: config.mode === 'test' ? 0 : 15 * 60 * 1000,
     expiration: TWO_WEEKS_MS,
+    // No write on every request: sessions are extended once a day instead (see extendDaily below).
+    disableTouch: true,
     // Kept on the row so that every session of one account can be ended at once.
     extendDefaultFields: (defaults: { data: string; expires: Date }, data: { passport?: { user?: number } }) => ({
       ...defaults,
       userId: data?.passport?.user ?? null,
     }),
-  });
+  };
+  const store = new SequelizeStore(storeOptions);
 
   app.use(
     session({
@@ -50,7 +57,7 @@ export function installAuth(app: Express, config: Config, sequelize: Sequelize) 
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       proxy: config.trustProxy,
       cookie: { httpOnly: true, sameSite: 'lax', secure: config.trustProxy ? 'auto' : false, maxAge: TWO_WEEKS_MS },
     }),
@@ -63,11 +70,27 @@ export function installAuth(app: Express, config: Config, sequelize: Sequelize) 
   );
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: number, done) => {
-    userById(id).then((user) => done(null, user ?? false), done);
+    userByIdCached(id).then((user) => done(null, user ?? false), done);
   });
   app.use(passport.session());
+  app.use(extendDaily);
   return { store };
 }
+
+/**
+ * A signed-in session lasts two weeks from the last day it was used. Marking the day in the session
+ * makes express-session save the row and resend the cookie once a day rather than on every request.
+ */
+const extendDaily: RequestHandler = (req, _res, next) => {
+  if (req.user) {
+    const today = new Date().toISOString().slice(0, 10);
+    if (req.session.extendedOn !== today) {
+      req.session.extendedOn = today;
+      req.session.cookie.maxAge = TWO_WEEKS_MS;
+    }
+  }
+  next();
+};
 
 /** Routes behind this need a signed-in person; anyone else gets 401. */
 export const requireUser: RequestHandler = (req, _res, next) => {

@@ -8,7 +8,7 @@ import { AppError, notFound, parseInput } from '../errors';
 import { accessOf, hullAccess } from '../http/hull-access';
 import { hullArchive, hullCopy, hullRename } from '../services/hulls';
 import { offsetsFromCsv, offsetsToCsv } from '../services/offsets-csv';
-import { draftDelete, draftGet, draftPut, planResponseJson, revisionCached, revisionCompare, revisionList, revisionRestore, revisionSave } from '../services/plans';
+import { draftDelete, draftGet, draftPut, planResponseJson, planValidated, revisionCached, revisionCompare, revisionList, revisionRestore, revisionSave } from '../services/plans';
 
 /** Largest table of offsets accepted: a big hull's table is tens of kilobytes. */
 export const OFFSETS_CSV_MAX_BYTES = 2 * 1024 * 1024;
@@ -110,7 +110,7 @@ export function registerPlanRoutes(router: Router) {
     const base = JSON.parse(await planResponseJson(access.hullId, fields.baseRevisionId, access.units)).plan as Plan;
     const notation = notationSchema.parse({ ...base.lines.notation, unit: fields.unit, decimalComma: fields.decimalComma, sixteenthMarks: fields.sixteenthMarks });
     const table = offsetsFromCsv(req.file.buffer, notation, base.lines);
-    const plan: Plan = { ...base, lines: { ...base.lines, stations: table.stations, lines: table.lines, notation: base.lines.stations.length ? base.lines.notation : notation } };
+    const plan = planValidated({ ...base, lines: { ...base.lines, stations: table.stations, lines: table.lines, notation: base.lines.stations.length ? base.lines.notation : notation } });
     const summary = `Imported offsets from ${req.file.originalname} (${table.lines.length} lines, ${table.stations.length} stations)`;
     const saved = await revisionSave({ ...access, authorId: req.user!.id, baseRevisionId: fields.baseRevisionId, plan, summary });
     res.status(201).json(saved);

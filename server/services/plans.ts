@@ -3,7 +3,7 @@ import { gunzip, gzip } from 'node:zlib';
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { Role } from '../../shared/api/hulls';
 import type { DraftResponse, RevisionSummary } from '../../shared/api/plan';
-import { planCompare, planChangeSummary, planTouches, type PlanChange } from '../../shared/geometry/plan-compare';
+import { planCompare, planChangeSummary, type PlanChange } from '../../shared/geometry/plan-compare';
 import { planEmpty, planRead } from '../../shared/geometry/plan';
 import { PLAN_SCHEMA_VERSION, type Plan } from '../../shared/geometry/plan-schema';
 import { AppError, notFound } from '../errors';
@@ -92,8 +92,8 @@ export async function revisionList(hullId: number): Promise<RevisionSummary[]> {
 }
 
 /** Refuse a change to a half of the plan the role may not edit (DESIGN section 7). */
-function assertMayChange(role: Role, before: Plan, after: Plan) {
-  const touches = planTouches(before, after);
+function assertMayChange(role: Role, changes: readonly PlanChange[]) {
+  const touches = { lines: changes.some((c) => c.area === 'lines'), parts: changes.some((c) => c.area === 'parts') };
   if (touches.lines && !roleMay(role, 'edit-lines')) throw new AppError(403, 'lines_not_allowed', `As ${role} you cannot change the lines, offsets or camber`);
   if (touches.parts && !roleMay(role, 'edit-parts')) throw new AppError(403, 'parts_not_allowed', `As ${role} you can change the lines, offsets and camber, but not the parts (frames, layers, longitudinals)`);
 }
@@ -111,6 +111,13 @@ async function latestSummary(hullId: number): Promise<RevisionSummary | null> {
   return JSON.parse((await revisionCached(hullId, hull.latestRevisionId)).metaJson) as RevisionSummary;
 }
 
+/** Validate a plan this server built itself (an import), with the field path on failure. */
+export function planValidated(candidate: unknown): Plan {
+  const read = planRead(candidate);
+  if (!read.ok) throw new AppError(400, 'invalid_plan', `plan.${read.issues[0].field}: ${read.issues[0].message}`, `plan.${read.issues[0].field}`, true, { issues: read.issues.map((i) => ({ ...i, field: `plan.${i.field}` })) });
+  return read.plan;
+}
+
 export interface SaveRequest {
   hullId: number;
   units: 'mm' | 'ftin';
@@ -122,20 +129,19 @@ export interface SaveRequest {
 }
 
 /**
- * Save a plan as a new revision on top of its base. The insert and the move of the hull's latest pointer
+ * Save a plan as a new revision on top of its base. `plan` must already be validated against the schema
+ * (the route's parseInput does it for a request body; an import builds its plan through planValidated). The insert and the move of the hull's latest pointer
  * are one transaction, and the move is conditional on the pointer still being the base: of many saves
  * from one base exactly one commits, the others get 409 with the latest revision. Nothing is overwritten.
  */
 export async function revisionSave(req: SaveRequest, transaction?: Transaction): Promise<{ revision: RevisionSummary; changes: PlanChange[] }> {
-  const read = planRead(req.plan);
-  if (!read.ok) throw new AppError(400, 'invalid_plan', `plan.${read.issues[0].field}: ${read.issues[0].message}`, `plan.${read.issues[0].field}`, true, { issues: read.issues.map((i) => ({ ...i, field: `plan.${i.field}` })) });
-  const plan = read.plan;
+  const plan = req.plan;
   const base = await planOf(req.hullId, req.baseRevisionId, req.units).catch((err) => {
     if (err instanceof AppError && err.status === 404) throw new AppError(400, 'no_such_base', `Revision ${req.baseRevisionId} is not a revision of this hull`, 'baseRevisionId');
     throw err;
   });
-  assertMayChange(req.role, base, plan);
   const changes = planCompare(base, plan);
+  assertMayChange(req.role, changes);
   const summary = (req.summary?.trim() || planChangeSummary(changes)).slice(0, 500);
   const json = JSON.stringify(plan);
   const documentGz = await gzipAsync(json);
@@ -208,7 +214,7 @@ export async function draftGet(hullId: number, userId: number): Promise<DraftRes
 /** Autosave: replace the person's draft (valid against the schema; geometry may still warn). */
 export async function draftPut(req: Omit<SaveRequest, 'summary' | 'authorId'> & { userId: number }): Promise<{ updatedAt: string }> {
   const base = await planOf(req.hullId, req.baseRevisionId, req.units);
-  assertMayChange(req.role, base, req.plan);
+  assertMayChange(req.role, planCompare(base, req.plan));
   const documentGz = await gzipAsync(JSON.stringify(req.plan));
   await PlanDraft.upsert({ hullId: req.hullId, userId: req.userId, baseRevisionId: req.baseRevisionId, schemaVersion: PLAN_SCHEMA_VERSION, documentGz, updatedAt: new Date() });
   return { updatedAt: new Date().toISOString() };

@@ -42,3 +42,24 @@ export async function userByEmail(email: string): Promise<SessionUser | null> {
   const user = await User.findOne({ where: { email: normaliseEmail(email) } });
   return user ? toSessionUser(user) : null;
 }
+
+const USER_CACHE_MS = 30_000;
+const userCache = new Map<number, { user: SessionUser | null; at: number }>();
+
+/**
+ * The account behind a session, remembered for 30 seconds: every request of a signed-in person needs it,
+ * and it changes only when the person renames themselves (which calls userCacheForget). Ending sessions
+ * does not rely on this cache: it deletes the session rows.
+ */
+export async function userByIdCached(id: number): Promise<SessionUser | null> {
+  const hit = userCache.get(id);
+  if (hit && Date.now() - hit.at < USER_CACHE_MS) return hit.user;
+  const user = await userById(id);
+  if (userCache.size > 10_000) userCache.clear();
+  userCache.set(id, { user, at: Date.now() });
+  return user;
+}
+
+export function userCacheForget(id: number) {
+  userCache.delete(id);
+}

@@ -74,6 +74,8 @@ export function planCompare(a: Plan, b: Plan): PlanChange[] {
       out.push({ area: 'lines', kind: 'line', path: `lines.lines.${id}`, label: `line ${(x ?? y)!.name} ${x ? 'removed' : 'added'}`, before: x ?? null, after: y ?? null });
       continue;
     }
+    // Most lines are untouched by an edit: one comparison of the whole line skips the field-by-field walk.
+    if (same(x, y)) continue;
     compareLeaves('lines', 'line', `lines.lines.${id}`, `line ${y.name}`, lineSettings(x), lineSettings(y), out);
     const cells = new Set([...Object.keys(x.cells), ...Object.keys(y.cells)]);
     for (const stationId of cells) {
@@ -94,7 +96,7 @@ export function planCompare(a: Plan, b: Plan): PlanChange[] {
     const y = pb.get(id);
     const name = (y ?? x) as { name?: string };
     if (!x || !y) out.push({ area: 'parts', kind: 'part', path: `parts.parts.${id}`, label: `part ${name.name ?? id} ${x ? 'removed' : 'added'}`, before: x ?? null, after: y ?? null });
-    else compareLeaves('parts', 'part', `parts.parts.${id}`, `part ${name.name ?? id}`, x, y, out);
+    else if (!same(x, y)) compareLeaves('parts', 'part', `parts.parts.${id}`, `part ${name.name ?? id}`, x, y, out);
   }
   const ga = byId(a.parts.longitudinals);
   const gb = byId(b.parts.longitudinals);
@@ -103,7 +105,7 @@ export function planCompare(a: Plan, b: Plan): PlanChange[] {
     const y = gb.get(id);
     const name = (y ?? x) as { name?: string };
     if (!x || !y) out.push({ area: 'parts', kind: 'longitudinal', path: `parts.longitudinals.${id}`, label: `longitudinal ${name.name ?? id} ${x ? 'removed' : 'added'}`, before: x ?? null, after: y ?? null });
-    else compareLeaves('parts', 'longitudinal', `parts.longitudinals.${id}`, `longitudinal ${name.name ?? id}`, x, y, out);
+    else if (!same(x, y)) compareLeaves('parts', 'longitudinal', `parts.longitudinals.${id}`, `longitudinal ${name.name ?? id}`, x, y, out);
   }
   return out;
 }

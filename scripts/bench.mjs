@@ -1,0 +1,21 @@
+#!/usr/bin/env node
+// `npm run bench`: the benchmarks under tests/bench. They print figures and never pass or fail. The HTTP
+// ones run against a throw-away MariaDB with the same durable settings as npm start.
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { root, setUp, tsxNode } from './lib/setup.mjs';
+import { secret } from './lib/mariadb.mjs';
+import { freePort, run, say } from './lib/sh.mjs';
+
+const dataRoot = mkdtempSync(path.join(os.tmpdir(), 'loftbench-bench-'));
+const { env, stop } = await setUp({ dataRoot, dbPort: await freePort(), database: 'loftbench_bench', dbPassword: secret(), sessionSecret: secret(32), mode: 'test', seedDemo: false });
+try {
+  say('Geometry and export benchmarks (vitest bench)...');
+  run(process.execPath, ['node_modules/vitest/vitest.mjs', 'bench', '--run', '--project', 'unit'], { cwd: root, env });
+  say('HTTP benchmark of the plan read and save...');
+  run(process.execPath, [...tsxNode, 'tests/bench/plan-http.ts'], { cwd: root, env });
+} finally {
+  await stop();
+  rmSync(dataRoot, { recursive: true, force: true });
+}
