@@ -3,7 +3,7 @@
 // ports), so it never collides with a running `npm start`; then the whole suite (unit, components, API on
 // the real database, browser tests in Debian's Chromium); then it stops what it started.
 // Extra arguments go to vitest, e.g. `npm test -- --project api`.
-import { mkdtempSync, rmSync, mkdirSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, mkdirSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { buildClient, root, setUp } from './lib/setup.mjs';
@@ -42,13 +42,16 @@ const cleanUp = async () => {
 };
 
 if (!which('chromium')) aptInstall(['chromium'], 'Chromium (for the browser tests)');
+// The PDF tests render pages with poppler and measure the calibration square on the image.
+if (!which('pdftoppm')) aptInstall(['poppler-utils'], 'poppler-utils (pdftoppm, for the PDF tests)');
 const clientDir = path.join(dataRoot, 'client');
 buildClient(clientDir, env);
 const outputDir = path.join(root, 'test-output');
 mkdirSync(outputDir, { recursive: true });
 
 say(`Running the test suite (MariaDB on 127.0.0.1:${dbPort}, data in ${dataRoot})`);
-const tests = spawnChild(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {
+const report = path.join(dataRoot, 'vitest.json');
+const tests = spawnChild(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...process.argv.slice(2)], {
   cwd: root,
   env: { ...env, LOFTBENCH_CLIENT_DIR: clientDir, LOFTBENCH_TEST_OUTPUT: outputDir, LOFTBENCH_CHROMIUM: which('chromium') },
 });
@@ -60,6 +63,9 @@ const onSignal = () => {
 process.on('SIGINT', onSignal);
 process.on('SIGTERM', onSignal);
 const code = await tests.exited;
+// One plain closing line, the same whatever reporter a CI reads.
+const summary = existsSync(report) ? JSON.parse(readFileSync(report, 'utf8')) : null;
 await cleanUp();
 say(interrupted ? 'Interrupted.' : code === 0 ? 'All tests passed.' : `Tests failed (exit ${code}).`);
+if (summary) process.stdout.write(`${summary.numPassedTests} passed, ${summary.numFailedTests} failed, ${summary.numPendingTests + summary.numTodoTests} skipped\n`);
 process.exit(interrupted ? 130 : code);
