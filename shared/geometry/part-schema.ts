@@ -387,6 +387,10 @@ export type Part = z.infer<typeof partSchema>;
 export type PartInput = z.input<typeof partSchema>;
 export type PartKind = Part['kind'];
 export type RingFrame = z.infer<typeof ringFrameSchema>;
+export type Bulkhead = z.infer<typeof bulkheadSchema>;
+export type PartialBulkhead = z.infer<typeof partialBulkheadSchema>;
+export type Floor = z.infer<typeof floorSchema>;
+export type Mould = z.infer<typeof mouldSchema>;
 export type DeckBeam = z.infer<typeof deckBeamSchema>;
 export type HalfBeam = z.infer<typeof halfBeamSchema>;
 export type Transom = z.infer<typeof transomSchema>;
@@ -427,7 +431,8 @@ export function partIssues(part: PartShape): PartIssue[] {
   let sum = 0;
   part.layers.forEach((layer, i) => {
     sum += layer.thicknessMm;
-    if (layer.thicknessMm > part.thicknessMm + LAYER_SUM_TOLERANCE_MM) {
+    // A frame thickness that is not positive is already an issue of its own field; comparing with it adds noise.
+    if (part.thicknessMm > 0 && layer.thicknessMm > part.thicknessMm + LAYER_SUM_TOLERANCE_MM) {
       add('layer-thicker-than-frame', ['layers', i, 'thicknessMm'], layer.thicknessMm, `layer ${i + 1} is ${shown(layer.thicknessMm)} mm thick, more than the frame's ${shown(part.thicknessMm)} mm`);
     }
     if (layer.joints.by === 'girth') {
@@ -437,7 +442,7 @@ export function partIssues(part: PartShape): PartIssue[] {
       }
     }
   });
-  if (part.layers.length > 0 && Math.abs(sum - part.thicknessMm) > LAYER_SUM_TOLERANCE_MM) {
+  if (part.thicknessMm > 0 && part.layers.length > 0 && Math.abs(sum - part.thicknessMm) > LAYER_SUM_TOLERANCE_MM) {
     add('layers-sum', ['layers'], sum, `the layers add up to ${shown(sum)} mm but the frame is ${shown(part.thicknessMm)} mm thick`);
   }
   if (part.kind === 'ring-frame') {
@@ -537,7 +542,8 @@ export type PartsParse = { ok: true; parts: Parts } | { ok: false; issues: PartI
  * `part "Frame 3" (f3): layers.1.thicknessMm: the layer thickness must be more than 0 mm, found -4 mm`.
  */
 export function partsParse(input: unknown): PartsParse {
-  const r = partsSchema.safeParse(input);
+  // reportInput keeps the offending value on each issue, for the editor to show beside the field.
+  const r = partsSchema.safeParse(input, { reportInput: true });
   if (r.success) return { ok: true, parts: r.data };
   const raw = (input ?? {}) as { parts?: unknown; longitudinals?: unknown };
   const issues = r.error.issues.map((iss): PartIssue => {

@@ -62,8 +62,8 @@ describe('a server killed while saving', () => {
         const plan = demoPlan();
         (plan.lines.lines[2].cells as Record<string, { y: number; z: number }>)['st-3'] = { y: 900 + w, z: 790 + n / 100 };
         try {
-          const res = await fetch(`${base()}/api/hulls/${hullId}/plan/revisions`, { method: 'POST', headers, body: JSON.stringify({ baseRevisionId: latest, plan }) });
-          const body = await res.json();
+          const res: Response = await fetch(`${base()}/api/hulls/${hullId}/plan/revisions`, { method: 'POST', headers, body: JSON.stringify({ baseRevisionId: latest, plan }) });
+          const body = (await res.json()) as { revision: { id: number }; error: { latestRevisionId: number | null } };
           if (res.status === 201) {
             acknowledged.set(body.revision.id, plan);
             latest = body.revision.id;
