@@ -156,7 +156,9 @@ const hullArb: fc.Arbitrary<HullLinesInput> = fc
       : chineHull({
           xs,
           chineY: B,
-          flare: p.flare,
+          // Tumblehome no deeper than half the narrowest chine beam: more would carry the sheer across the
+          // centreline, which is not a valid hull (hullBuild rightly refuses it), not a case for this property.
+          flare: Math.max(p.flare, (-0.5 * minB) / p.depth),
           sheerZ: p.depth,
           waterlineZs: wls.map((z) => Number((z - 1000 + p.depth).toFixed(3))).filter((z) => z > 0 && z < p.depth),
           bottomMm: p.skin,

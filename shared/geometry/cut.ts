@@ -1,0 +1,199 @@
+import { type Shape, polygonBounds, polygonSignedArea, shapeBoolean } from './polygon';
+import type { SectionPoint } from './types';
+
+/**
+ * Cutters (notch rectangles, limber circles, openings) taken out of a part's regions. Almost every cut is a
+ * bite out of the outer edge (the cutter crosses it twice and touches nothing else) or a hole wholly inside
+ * the material: those are spliced here exactly, in time linear in the loop. Anything else (cutters that
+ * overlap, a cutter reaching a hole, an edge crossed more than twice) goes to clipper-lib's difference.
+ *
+ * A bite: walking the outer loop (counter-clockwise, material on the left), where it enters the cutter the
+ * walk turns onto the cutter's edge and follows it backward (clockwise) to where the loop leaves it, so the
+ * material stays on the left and the bitten part is left out.
+ */
+
+interface Crossing {
+  /** Edge of the loop (from point i to i + 1) and the fraction along it. */
+  i: number;
+  s: number;
+  /** Edge of the cutter and the fraction along it. */
+  k: number;
+  u: number;
+  point: SectionPoint;
+}
+
+const inside = (loop: readonly SectionPoint[], p: SectionPoint): boolean => {
+  let c = false;
+  for (let i = 0, j = loop.length - 1; i < loop.length; j = i++) {
+    const a = loop[i]!;
+    const b = loop[j]!;
+    if (a.z > p.z !== b.z > p.z && p.y < ((b.y - a.y) * (p.z - a.z)) / (b.z - a.z) + a.y) c = !c;
+  }
+  return c;
+};
+
+type Box = { minY: number; maxY: number; minZ: number; maxZ: number };
+const boxesMeet = (a: Box, b: Box): boolean => a.minY <= b.maxY && b.minY <= a.maxY && a.minZ <= b.maxZ && b.minZ <= a.maxZ;
+
+/** Where the loop's edges cross the cutter's (each crossing counted once: fractions in [0, 1) on both). */
+function crossings(loop: readonly SectionPoint[], cutter: readonly SectionPoint[], box: Box): Crossing[] | null {
+  const out: Crossing[] = [];
+  const n = loop.length;
+  const m = cutter.length;
+  for (let i = 0; i < n; i++) {
+    const a = loop[i]!;
+    const b = loop[(i + 1) % n]!;
+    if (Math.max(a.y, b.y) < box.minY || Math.min(a.y, b.y) > box.maxY || Math.max(a.z, b.z) < box.minZ || Math.min(a.z, b.z) > box.maxZ) continue;
+    const ry = b.y - a.y;
+    const rz = b.z - a.z;
+    for (let k = 0; k < m; k++) {
+      const c = cutter[k]!;
+      const d = cutter[(k + 1) % m]!;
+      const qy = d.y - c.y;
+      const qz = d.z - c.z;
+      const den = ry * qz - rz * qy;
+      if (Math.abs(den) < 1e-15) {
+        // Parallel: only a problem when they overlap (a cutter edge lying on the loop's edge): not a simple bite.
+        const cross = (c.y - a.y) * rz - (c.z - a.z) * ry;
+        if (Math.abs(cross) < 1e-12 * Math.max(1, Math.hypot(ry, rz))) return null;
+        continue;
+      }
+      const wy = c.y - a.y;
+      const wz = c.z - a.z;
+      const s = (wy * qz - wz * qy) / den;
+      const u = (wy * rz - wz * ry) / den;
+      if (s >= 0 && s < 1 && u >= 0 && u < 1) out.push({ i, s, k, u, point: { y: a.y + s * ry, z: a.z + s * rz } });
+    }
+  }
+  return out;
+}
+
+/** A bite: where the loop goes into the cutter and where it comes out. */
+interface Bite {
+  cutter: readonly SectionPoint[];
+  enter: Crossing;
+  leave: Crossing;
+}
+
+/** The bite a cutter takes from the loop, or null when it is not a simple one (not two crossings, in then out). */
+function biteOf(loop: readonly SectionPoint[], cutter: readonly SectionPoint[], x: Crossing[]): Bite | null {
+  if (x.length !== 2) return null;
+  const n = loop.length;
+  // Which of the two is where the loop goes in: just after it the loop lies inside the cutter.
+  const after = (c: Crossing): SectionPoint => {
+    const a = loop[c.i]!;
+    const b = loop[(c.i + 1) % n]!;
+    const f = Math.min(1, c.s + 1e-6);
+    return { y: a.y + f * (b.y - a.y), z: a.z + f * (b.z - a.z) };
+  };
+  const in0 = inside(cutter, after(x[0]!));
+  if (in0 === inside(cutter, after(x[1]!))) return null;
+  return in0 ? { cutter, enter: x[0]!, leave: x[1]! } : { cutter, enter: x[1]!, leave: x[0]! };
+}
+
+const along = (c: Crossing): number => c.i + c.s;
+
+/**
+ * The loop with its bites taken out, in one walk: from each bite's way out along the loop to the next bite's
+ * way in, then back along that cutter (clockwise) to its way out. The bites do not overlap (their cutters do
+ * not meet). Null when they do not follow one another round the loop as simple bites do.
+ */
+function bitten(loop: readonly SectionPoint[], bites: readonly Bite[]): SectionPoint[] | null {
+  const n = loop.length;
+  const order = [...bites].sort((a, b) => along(a.leave) - along(b.leave));
+  const out: SectionPoint[] = [];
+  const push = (p: SectionPoint): void => {
+    // A bite entered or left exactly at a vertex gives that point twice: once is enough.
+    const q = out[out.length - 1];
+    if (!q || q.y !== p.y || q.z !== p.z) out.push(p);
+  };
+  for (let b = 0; b < order.length; b++) {
+    const from = order[b]!;
+    const to = order[(b + 1) % order.length]!;
+    // Going round from this bite's way out, the next bite's way in must come before its way out.
+    let gap = along(to.enter) - along(from.leave);
+    if (gap < 0 || (gap === 0 && order.length === 1)) gap += n;
+    let next = along(to.leave) - along(from.leave);
+    if (next <= 0) next += n;
+    if (!(gap < next)) return null;
+    push(from.leave.point);
+    // The loop's points strictly after the way out, up to and with the start of the edge the next bite enters on.
+    let span = to.enter.i - from.leave.i;
+    if (span < 0 || (span === 0 && gap > 1)) span += n;
+    for (let k = 1; k <= span; k++) push(loop[(from.leave.i + k) % n]!);
+    push(to.enter.point);
+    // Back along the cutter from the edge it is entered on to the edge it is left by; both on one edge, either
+    // straight along it (left before entered, going backward) or all the way round.
+    const m = to.cutter.length;
+    let k = to.enter.k;
+    if (!(k === to.leave.k && to.leave.u < to.enter.u)) {
+      for (let guard = 0; guard <= m; guard++) {
+        push(to.cutter[k]!);
+        k = (k - 1 + m) % m;
+        if (k === to.leave.k) break;
+      }
+    }
+  }
+  const first = out[0]!;
+  const last = out[out.length - 1]!;
+  if (out.length > 1 && first.y === last.y && first.z === last.z) out.pop();
+  return polygonSignedArea(out) > 0 ? out : null;
+}
+
+/** The shapes with every cutter (counter-clockwise loops) taken out: spliced when simple, else by clipper-lib. */
+export function cutShapes(regions: readonly Shape[], cutters: readonly SectionPoint[][]): Shape[] {
+  if (cutters.length === 0) return [...regions];
+  const boxes = cutters.map((c) => polygonBounds(c)!);
+  // Cutters that overlap each other need a real boolean.
+  for (let a = 0; a < boxes.length; a++) {
+    for (let b = a + 1; b < boxes.length; b++) if (boxesMeet(boxes[a]!, boxes[b]!) && loopsMeet(cutters[a]!, cutters[b]!, boxes[b]!)) return clipped(regions, cutters);
+  }
+  const out: Shape[] = regions.map((r) => ({ outer: r.outer, holes: [...r.holes] }));
+  const outerBoxes = out.map((r) => polygonBounds(r.outer)!);
+  const bites: Bite[][] = out.map(() => []);
+  for (let c = 0; c < cutters.length; c++) {
+    const cutter = cutters[c]!;
+    const box = boxes[c]!;
+    for (let ri = 0; ri < out.length; ri++) {
+      const r = out[ri]!;
+      if (!boxesMeet(outerBoxes[ri]!, box)) continue;
+      // A cutter that reaches a hole (crosses it, or lies in it) needs a real boolean.
+      for (const h of regions[ri]!.holes) {
+        const xh = crossings(h, cutter, box);
+        if (xh === null || xh.length > 0 || inside(h, cutter[0]!)) return clipped(regions, cutters);
+      }
+      const x = crossings(r.outer, cutter, box);
+      if (x === null) return clipped(regions, cutters);
+      if (x.length === 0) {
+        if (inside(r.outer, cutter[0]!)) {
+          // Wholly inside the material: a hole (clockwise).
+          r.holes.push([...cutter].reverse());
+          break;
+        }
+        if (inside(cutter, r.outer[0]!)) return clipped(regions, cutters);
+        continue;
+      }
+      const b = biteOf(r.outer, cutter, x);
+      if (b === null) return clipped(regions, cutters);
+      bites[ri]!.push(b);
+      break;
+    }
+  }
+  for (let ri = 0; ri < out.length; ri++) {
+    if (bites[ri]!.length === 0) continue;
+    const cut = bitten(out[ri]!.outer, bites[ri]!);
+    if (cut === null) return clipped(regions, cutters);
+    out[ri]!.outer = cut;
+  }
+  return out;
+}
+
+/** Whether two loops overlap: their edges cross, or one lies inside the other. */
+function loopsMeet(a: readonly SectionPoint[], b: readonly SectionPoint[], bBox: Box): boolean {
+  const x = crossings(a, b, bBox);
+  return x === null || x.length > 0 || inside(a, b[0]!) || inside(b, a[0]!);
+}
+
+function clipped(regions: readonly Shape[], cutters: readonly SectionPoint[][]): Shape[] {
+  return shapeBoolean('difference', regions, cutters.map((outer) => ({ outer, holes: [] })));
+}
