@@ -13,7 +13,16 @@ import { registerAuthRoutes } from './routes/auth';
 import { registerCrewRoutes } from './routes/crew';
 import { registerHealthRoutes } from './routes/health';
 import { registerHullRoutes } from './routes/hulls';
+import { registerExportRoutes } from './routes/exports';
+import { registerPartRoutes } from './routes/parts';
 import { registerPlanRoutes } from './routes/plans';
+import { createMailer } from './mail/mailer';
+import { registerAccountRoutes } from './routes/account';
+import { registerDevMailRoutes } from './routes/dev-mail';
+import { registerInvitationRoutes } from './routes/invitations';
+import { registerLibraryRoutes } from './routes/library';
+import { registerNoticeRoutes } from './routes/notices';
+import { registerBuildLogRoutes } from './routes/build-log';
 
 export interface AppDeps {
   config: Config;
@@ -30,6 +39,7 @@ export function createApp({ config, sequelize }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
+  app.locals.mailer = createMailer(config.mail, config.logLevel);
 
   app.use(
     helmet({
@@ -62,6 +72,15 @@ export function createApp({ config, sequelize }: AppDeps): Express {
   registerHullRoutes(api);
   registerCrewRoutes(api);
   registerPlanRoutes(api);
+  registerPartRoutes(api);
+  registerExportRoutes(api);
+  registerInvitationRoutes(api, config);
+  registerAccountRoutes(api, config);
+  registerLibraryRoutes(api, config);
+  registerNoticeRoutes(api);
+  registerBuildLogRoutes(api, config);
+  // The page that shows what the local fake SMTP server received exists only outside production.
+  if (config.mode !== 'production') registerDevMailRoutes(api, config);
   app.use(api);
   app.use('/api', apiNotFound);
 

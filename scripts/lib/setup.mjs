@@ -6,6 +6,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureDependencies } from './deps.mjs';
 import { ensureMariadbInstalled, instancePaths, prepareDatabase, secret, startInstance, stopInstance } from './mariadb.mjs';
+import { startMailFake } from './mail-fake.mjs';
 import { fail, run, say } from './sh.mjs';
 
 export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -64,7 +65,17 @@ export async function setUp({ dataRoot, dbPort, database, dbPassword, sessionSec
     if (startedHere) await stopInstance(paths, adminPassword);
     fail(`Preparing the database failed: ${error.message}`);
   }
+  // Outside production, mail goes to a local fake SMTP server unless a real one is configured; the
+  // tests always use a fake of their own, whatever the environment says.
+  let mailFake = null;
+  if (mode === 'test' || (mode !== 'production' && !process.env.LOFTBENCH_SMTP_HOST)) {
+    mailFake = await startMailFake(root);
+    for (const key of ['LOFTBENCH_SMTP_USER', 'LOFTBENCH_SMTP_PASSWORD', 'LOFTBENCH_PUBLIC_URL']) delete env[key];
+    Object.assign(env, mailFake.env);
+    say(`Mail goes to a local fake SMTP server on 127.0.0.1:${mailFake.ports.smtpPort} (nothing leaves this machine); read it at /dev/mail`);
+  }
   const stop = async () => {
+    await mailFake?.stop();
     if (startedHere) {
       say('Stopping MariaDB...');
       await stopInstance(paths, adminPassword);

@@ -1,12 +1,13 @@
-import type { Express, RequestHandler } from 'express';
+import type { Application, Express, RequestHandler } from 'express';
 import session from 'express-session';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import connectSessionSequelize from 'connect-session-sequelize';
-import type { Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
 import type { Config } from '../config';
 import { AppError } from '../errors';
-import { userByCredentials, userByIdCached } from '../services/users';
+import { Session } from '../models';
+import { userByCredentials, userByIdCached, userCacheForget } from '../services/users';
 import type { SessionUser } from '../../shared/api/auth';
 import { cachedSessionStore } from './session-store';
 
@@ -49,6 +50,8 @@ export function installAuth(app: Express, config: Config, sequelize: Sequelize) 
     }),
   };
   const store = new SequelizeStore(storeOptions);
+  // For endSessionsOf(): the cache in front of the rows lives in this store.
+  app.locals.sessionStore = store;
 
   app.use(
     session({
@@ -106,6 +109,17 @@ export function signIn(req: Parameters<RequestHandler>[0], user: SessionUser): P
       req.login(user, (loginErr) => (loginErr ? reject(loginErr) : resolve()));
     });
   });
+}
+
+/**
+ * End every session of one account (after a password reset, or a change with "sign out everywhere"):
+ * delete the rows, then forget them in the store's read cache and the account cache, so the next
+ * request of any of them is anonymous. `exceptSid` keeps the session making the change.
+ */
+export async function endSessionsOf(app: Application, userId: number, exceptSid?: string): Promise<void> {
+  await Session.destroy({ where: exceptSid ? { userId, sid: { [Op.ne]: exceptSid } } : { userId } });
+  (app.locals.sessionStore as InstanceType<typeof SequelizeStore>).forgetUser(userId);
+  userCacheForget(userId);
 }
 
 /** Sign out and destroy the session row. */

@@ -1,5 +1,5 @@
 import bcrypt from 'bcryptjs';
-import { UniqueConstraintError } from 'sequelize';
+import { UniqueConstraintError, type Transaction } from 'sequelize';
 import type { SessionUser, SignUpInput } from '../../shared/api/auth';
 import { AppError } from '../errors';
 import { User } from '../models';
@@ -12,10 +12,10 @@ const toSessionUser = (u: User): SessionUser => ({ id: u.id, email: u.email, dis
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
 /** Create an account; a second account on the same e-mail is a 409. */
-export async function userCreate(input: SignUpInput, cost = BCRYPT_COST): Promise<SessionUser> {
+export async function userCreate(input: SignUpInput, cost = BCRYPT_COST, transaction?: Transaction): Promise<SessionUser> {
   const passwordHash = await bcrypt.hash(input.password, cost);
   try {
-    const user = await User.create({ email: normaliseEmail(input.email), displayName: input.displayName.trim(), passwordHash });
+    const user = await User.create({ email: normaliseEmail(input.email), displayName: input.displayName.trim(), passwordHash }, { transaction });
     return toSessionUser(user);
   } catch (err) {
     if (err instanceof UniqueConstraintError) throw new AppError(409, 'email_taken', 'An account with this e-mail address exists already; sign in instead', 'email');
@@ -31,6 +31,20 @@ export async function userByCredentials(email: string, password: string): Promis
   const user = await User.findOne({ where: { email: normaliseEmail(email) } });
   const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
   return user && ok ? toSessionUser(user) : null;
+}
+
+/** Whether `password` is this account's password (false for an unknown account). */
+export async function userPasswordMatches(id: number, password: string): Promise<boolean> {
+  const user = await User.findByPk(id, { attributes: ['passwordHash'] });
+  return bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH).then((ok) => ok && user !== null);
+}
+
+/** Give an account a new password. Ending its sessions is the caller's choice (endSessionsOf). */
+export async function userSetPassword(id: number, password: string, cost = BCRYPT_COST, transaction?: Transaction): Promise<void> {
+  const passwordHash = await bcrypt.hash(password, cost);
+  const [count] = await User.update({ passwordHash }, { where: { id }, transaction });
+  if (count !== 1) throw new AppError(404, 'not_found', 'No such account');
+  userCacheForget(id);
 }
 
 export async function userById(id: number): Promise<SessionUser | null> {

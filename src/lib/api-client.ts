@@ -15,14 +15,17 @@ export class ApiError extends Error {
   readonly code: string;
   readonly field: string | undefined;
   readonly issues: FieldIssue[];
+  /** Everything else the server put in `error` (a 409's `latestRevision`, an import's bad `cells`...). */
+  readonly details: Record<string, unknown>;
 
-  constructor(init: { status: number; code: string; message: string; field?: string; issues?: FieldIssue[] }) {
+  constructor(init: { status: number; code: string; message: string; field?: string; issues?: FieldIssue[]; details?: Record<string, unknown> }) {
     super(init.message);
     this.name = 'ApiError';
     this.status = init.status;
     this.code = init.code;
     this.field = init.field;
     this.issues = init.issues ?? [];
+    this.details = init.details ?? {};
   }
 }
 
@@ -50,6 +53,8 @@ export interface RequestOptions {
   signal?: AbortSignal;
   /** Sign-in answers 401 for a wrong password; that must show on the form, not bounce to the sign-in page. */
   redirectOnUnauthorized?: boolean;
+  /** Let the request outlive the page: the autosave sent as the tab is hidden or closed. */
+  keepalive?: boolean;
 }
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
@@ -71,8 +76,9 @@ export async function toApiError(response: Response): Promise<ApiError> {
     // A proxy or a crash can answer with HTML or nothing; the status alone must then do.
   }
   if (isApiErrorBody(body)) {
-    const { code, message, field, issues } = body.error;
+    const { code, message, field, issues, ...details } = body.error as ApiErrorBody['error'] & Record<string, unknown>;
     return new ApiError({
+      details,
       status: response.status,
       code,
       message: typeof message === 'string' && message ? message : `The server refused the request (${code}).`,
@@ -94,15 +100,18 @@ function isCsrfFailure(error: ApiError): boolean {
 
 async function send(method: Method, path: string, body: unknown, options: RequestOptions, csrfToken: string | null): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  // A form (a file upload) sets its own multipart Content-Type with the boundary; JSON is said outright.
+  const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (csrfToken !== null) headers['X-CSRF-Token'] = csrfToken;
   try {
     return await fetch(path, {
       method,
       headers,
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
       credentials: 'same-origin',
       signal: options.signal,
+      ...(options.keepalive ? { keepalive: true } : {}),
     });
   } catch (cause) {
     if (options.signal?.aborted) throw cause;
@@ -135,6 +144,8 @@ async function request<T>(method: Method, path: string, body: unknown, options: 
 export const api = {
   get: <T>(path: string, options?: RequestOptions) => request<T>('GET', path, undefined, options),
   post: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>('POST', path, body, options),
+  /** A multipart form (file uploads): sent as it is, the browser choosing the boundary. */
+  postForm: <T>(path: string, form: FormData, options?: RequestOptions) => request<T>('POST', path, form, options),
   patch: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>('PATCH', path, body, options),
   put: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>('PUT', path, body, options),
   delete: <T>(path: string, options?: RequestOptions) => request<T>('DELETE', path, undefined, options),

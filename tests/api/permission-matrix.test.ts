@@ -29,7 +29,7 @@ async function fixture(caller: Caller): Promise<MatrixFixture> {
   }
   const { revision } = await revisionSave({ hullId: hull.id, units: 'mm', authorId: people.owner.id, role: 'owner', baseRevisionId: null, plan: demoPlan() });
   const spare = await makeUser('spare');
-  return { hullId: hull.id, revisionId: revision.id, helperUserId: people.helper.id, spareEmail: spare.email, caller: caller === 'anonymous' ? null : people[caller] };
+  return { hullId: hull.id, revisionId: revision.id, helperUserId: people.helper.id, spareEmail: spare.email, caller: caller === 'anonymous' ? null : people[caller], who: caller, people, prepared: {} };
 }
 
 describe('permission matrix', () => {
@@ -45,6 +45,7 @@ describe('permission matrix', () => {
     for (const caller of callers) {
       it(`${route} as ${caller} → ${row.expect[caller]}`, async () => {
         const f = await fixture(caller);
+        if (row.prepare) f.prepared = await row.prepare(f);
         let agent = agents[caller];
         if (row.freshSession) agent = caller === 'anonymous' ? agentOf(server.app) : await signedIn(server.app, people[caller]);
         let req = agent[method](row.path(f));

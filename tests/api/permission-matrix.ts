@@ -1,4 +1,6 @@
 import { demoPlan } from '../../server/seed/demo-plan';
+import { collaborationMatrix } from './matrix-collaboration';
+import { buildLogMatrix } from './matrix-build-log';
 
 /**
  * The permission matrix: one row for every route of the app, with the status each kind of caller gets.
@@ -16,6 +18,11 @@ export interface MatrixFixture {
   helperUserId: number;
   spareEmail: string;
   caller: { email: string; password: string } | null;
+  /** Which caller the cell is for, and every signed-in person of the matrix (rows that need another's id). */
+  who: Caller;
+  people: Record<Exclude<Caller, 'anonymous'>, { id: number; email: string }>;
+  /** What the row's `prepare` made for this cell (ids, tokens); empty without one. */
+  prepared: Record<string, unknown>;
 }
 
 export interface MatrixRow {
@@ -27,6 +34,8 @@ export interface MatrixRow {
   freshSession?: boolean;
   /** Multipart upload: fields and files to attach instead of a JSON body. */
   multipart?: (f: MatrixFixture) => { fields?: Record<string, string>; files?: { field: string; name: string; content: Buffer }[] };
+  /** Make what the request needs (a Library item, a pin, a token) for this cell, before it is sent. */
+  prepare?: (f: MatrixFixture) => Promise<Record<string, unknown>>;
 }
 
 const everyone = (status: number): Record<Caller, number> => ({ owner: status, builder: status, designer: status, helper: status, stranger: status, anonymous: status });
@@ -124,5 +133,18 @@ export const matrix: Record<string, MatrixRow> = {
     expect: crew(201, editors),
   },
   'GET /api/hulls/:hullId/plan/export/offsets.csv': { path: (f) => `/api/hulls/${f.hullId}/plan/export/offsets.csv`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/parts': { path: (f) => `/api/hulls/${f.hullId}/parts`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/parts/:partId': { path: (f) => `/api/hulls/${f.hullId}/parts/pt-frame-3`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/parts/:partId/template.pdf': { path: (f) => `/api/hulls/${f.hullId}/exports/parts/pt-bulkhead-5/template.pdf?paper=a3`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/parts/:partId/roll.pdf': { path: (f) => `/api/hulls/${f.hullId}/exports/parts/pt-bulkhead-5/roll.pdf`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/parts/:partId/template.dxf': { path: (f) => `/api/hulls/${f.hullId}/exports/parts/pt-frame-3/template.dxf`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/hull.dxf': { path: (f) => `/api/hulls/${f.hullId}/exports/hull.dxf?units=in`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/bevels.csv': { path: (f) => `/api/hulls/${f.hullId}/exports/bevels.csv`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/bevels.pdf': { path: (f) => `/api/hulls/${f.hullId}/exports/bevels.pdf`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/cut-list.csv': { path: (f) => `/api/hulls/${f.hullId}/exports/cut-list.csv`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/cut-list.pdf': { path: (f) => `/api/hulls/${f.hullId}/exports/cut-list.pdf`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/exports/all.zip': { path: (f) => `/api/hulls/${f.hullId}/exports/all.zip`, expect: crew(200, allCrew) },
   'GET /api/hulls/:hullId/plan/export/plan.json': { path: (f) => `/api/hulls/${f.hullId}/plan/export/plan.json`, expect: crew(200, allCrew) },
+  ...collaborationMatrix,
+  ...buildLogMatrix,
 };

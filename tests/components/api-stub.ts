@@ -20,6 +20,12 @@ export type Handlers = Record<string, Reply | ((call: RecordedCall) => Reply)>;
 
 let unexpected: string[] = [];
 
+/**
+ * Answers every signed-in page asks for whatever the test is about, unless the test stubs them itself:
+ * the header's notices indicator reads GET /api/notices on every page.
+ */
+const defaults: Handlers = { 'GET /api/notices': { body: { notices: [] } } };
+
 export function takeUnexpectedCalls(): string[] {
   const taken = unexpected;
   unexpected = [];
@@ -48,7 +54,7 @@ export function stubApi(handlers: Handlers) {
       body: typeof init.body === 'string' ? JSON.parse(init.body) : undefined,
     };
     calls.push(call);
-    const handler = handlers[`${method} ${url.pathname}`];
+    const handler = handlers[`${method} ${url.pathname}`] ?? defaults[`${method} ${url.pathname}`];
     if (!handler) {
       unexpected.push(`${method} ${url.pathname}`);
       return jsonResponse(500, { error: { code: 'no_stub', message: `No stub for ${method} ${url.pathname}` } });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { apiError, stubApi } from './api-stub';
 import { ann, hull, member, sessionOf } from './fixtures';
+import { planHandlers } from './plan-fixtures';
 import { errorUnder, renderApp, screen } from './render-app';
 
 const signedIn = { 'GET /api/session': sessionOf(ann) };
@@ -52,6 +53,7 @@ describe('create-hull form', () => {
       'POST /api/hulls': { status: 201, body: { hull: created } },
       'GET /api/hulls/12': { body: { hull: created } },
       'GET /api/hulls/12/crew': { body: { crew: [member(ann, 'owner')] } },
+      ...planHandlers(12),
     });
     const { user, here } = renderApp('/hulls/new');
 

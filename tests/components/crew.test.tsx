@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { CrewMember, Role } from '../../shared/api/hulls';
 import { apiError, stubApi, type Handlers } from './api-stub';
 import { ann, hull, member, priya, sessionOf, tomas } from './fixtures';
+import { planHandlers } from './plan-fixtures';
 import { errorUnder, renderApp, screen } from './render-app';
 
 const ola = { id: 4, email: 'ola.berg@example.test', displayName: 'Ola Berg' };
@@ -16,6 +17,7 @@ function crewServer(myRole: Role, more: (crew: CrewMember[]) => Handlers = () =>
     'GET /api/session': sessionOf(ann),
     'GET /api/hulls/3': () => ({ body: { hull: hull({ id: 3, name: 'Curlew', role: myRoleNow() }) } }),
     'GET /api/hulls/3/crew': () => ({ body: { crew: crew.map((m) => ({ ...m })) } }),
+    ...planHandlers(3),
     ...more(crew),
   });
 }
@@ -75,7 +77,7 @@ describe('Crew on the hull page', () => {
     expect(screen.getByText('The people who work on this hull. Only an owner can change the crew.')).toBeTruthy();
   });
 
-  it('shows the hull, my role, a line per role, and the parts not built yet as such', async () => {
+  it('shows the hull, my role, a line per role, the built parts as links and the rest as not built yet', async () => {
     crewServer('designer');
     renderApp('/hulls/3');
 
@@ -85,12 +87,18 @@ describe('Crew on the hull page', () => {
     const guide = screen.getByRole('heading', { name: 'What each role may do' }).closest('section');
     expect(guide && within(guide).getAllByRole('term').map((t) => t.textContent)).toEqual(['Owner', 'Builder', 'Designer', 'Helper']);
     const parts = screen.getByRole('navigation', { name: 'Parts of this hull' });
-    for (const part of ['Lines', 'Frames', 'Print shop', 'Downloads', 'Build log']) {
+    for (const part of ['Print shop', 'Downloads']) {
       const item = within(parts).getByText(part);
       expect(item.getAttribute('aria-disabled')).toBe('true');
       expect(item.textContent).toContain('not built yet');
     }
-    expect(within(parts).queryAllByRole('link')).toEqual([]);
+    expect(within(parts).getAllByRole('link').map((a) => [a.textContent, a.getAttribute('href')])).toEqual([
+      ['Crew', '/hulls/3'],
+      ['Lines', '/hulls/3/lines'],
+      ['Frames', '/hulls/3/frames'],
+      ['Revisions', '/hulls/3/history'],
+      ['Build log', '/hulls/3/build-log'],
+    ]);
   });
 
   it('asks before removing, and removes only when confirmed', async () => {

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { ApiError, toApiError } from '../../src/lib/api-client';
 import { apiError, stubApi } from './api-stub';
 import { ann, hull, member, sessionOf, signedOutSession } from './fixtures';
+import { planHandlers } from './plan-fixtures';
 import { renderApp, screen } from './render-app';
 
 describe('signed-in pages', () => {
@@ -25,6 +26,7 @@ describe('signed-in pages', () => {
         return apiError(401, 'signed_out', 'Sign in first');
       },
       'GET /api/hulls/7/crew': () => (state === 'signed-in' ? { body: { crew: [member(ann, 'owner')] } } : apiError(401, 'signed_out', 'Sign in first')),
+      ...planHandlers(7),
       'POST /api/auth/sign-in': () => {
         state = 'signed-in';
         return { body: { user: ann } };
@@ -51,6 +53,7 @@ describe('signed-in pages', () => {
       'GET /api/session': () => (signedIn ? sessionOf(ann, 'token-ann') : signedOutSession),
       'GET /api/hulls/7': { body: { hull: hull({ id: 7, name: 'Whimbrel' }) } },
       'GET /api/hulls/7/crew': { body: { crew: [member(ann, 'owner')] } },
+      ...planHandlers(7),
       'POST /api/auth/sign-out': () => {
         signedIn = false;
         return { status: 204 };

@@ -19,8 +19,11 @@ if (!('size' in HTMLSelectElement.prototype)) {
 }
 
 // vitest runs without globals here, so Testing Library cannot register its own cleanup.
-afterEach(() => {
+afterEach(async () => {
   cleanup();
+  // Unmounting a hull page sends what is not on the server yet (the autosave's last flush); let it reach
+  // the test's stubbed fetch, where an unexpected request fails the test, rather than the real network.
+  await new Promise((resolve) => setTimeout(resolve, 0));
   vi.unstubAllGlobals();
   const unexpected = takeUnexpectedCalls();
   // A request the test did not stub is a bug in the app or in the test: fail, never let it pass by accident.

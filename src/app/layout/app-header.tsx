@@ -5,6 +5,7 @@ import { Button } from '../../components/ui/button';
 import { LogoMark } from '../../components/ui/logo-mark';
 import { useSession } from '../../features/auth/api/get-session';
 import { useSignOut } from '../../features/auth/api/sign-out';
+import { NoticesIndicator } from '../../features/notices/components/notices-indicator';
 
 const navLink = ({ isActive }: { isActive: boolean }) =>
   'inline-flex min-h-12 items-center rounded-lg px-4 text-lg font-semibold hover:bg-white/15 ' +
@@ -52,13 +53,21 @@ export function AppHeader() {
                       Hulls
                     </NavLink>
                   </li>
+                  <li>
+                    <NavLink to="/library" className={navLink} onClick={() => setMenuOpen(false)}>
+                      Library
+                    </NavLink>
+                  </li>
+                  <li>
+                    <NoticesIndicator onNavigate={() => setMenuOpen(false)} />
+                  </li>
                 </ul>
               </nav>
               <div className="flex flex-wrap items-center gap-3 sm:ml-auto">
-                <span className="flex items-center gap-2 text-white/90">
+                <NavLink to="/account" title="Your account" className="flex min-h-12 items-center gap-2 rounded-lg px-2 text-white/90 hover:bg-white/15" onClick={() => setMenuOpen(false)}>
                   <UserRound aria-hidden="true" className="size-5" />
                   <span className="max-w-48 truncate">{user.displayName}</span>
-                </span>
+                </NavLink>
                 <Button variant="on-dark" busy={signOut.isPending} onClick={() => signOut.mutate()}>
                   <LogOut aria-hidden="true" className="size-5" />
                   Sign out

@@ -1,14 +1,15 @@
-import { Link, useParams } from 'react-router-dom';
+import { Link, Outlet, useOutletContext, useParams } from 'react-router-dom';
+import type { HullSummary } from '../../../shared/api/hulls';
 import { Alert } from '../../components/ui/alert';
 import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
 import { Loading } from '../../components/ui/loading';
 import { ApiError, describeError } from '../../lib/api-client';
 import { roleLabels, unitsLabels } from '../../lib/labels';
-import { useSession } from '../../features/auth/api/get-session';
-import { CrewSection } from '../../features/crew/components/crew-section';
 import { useHull } from '../../features/hulls/api/get-hull';
 import { HullSections } from '../../features/hulls/components/hull-sections';
+import { PlanBar } from '../../features/plan/components/plan-bar';
+import { PlanEditorProvider } from '../../features/plan/components/plan-editor-provider';
 
 const backLink = 'inline-flex min-h-12 items-center font-semibold text-primary underline underline-offset-4';
 
@@ -28,9 +29,17 @@ function HullNotFound() {
   );
 }
 
+/** What the hull's pages get from the layout around them. */
+export interface HullOutletContext {
+  hull: HullSummary;
+}
+
+export function useHullOutlet(): HullOutletContext {
+  return useOutletContext<HullOutletContext>();
+}
+
 function HullWorkspace({ hullId }: { hullId: number }) {
   const hull = useHull(hullId);
-  const session = useSession();
 
   if (hull.isPending) return <Loading label="Loading the hull…" />;
   if (hull.isError) {
@@ -50,31 +59,38 @@ function HullWorkspace({ hullId }: { hullId: number }) {
     );
   }
 
-  const { name, units, role, notes } = hull.data.hull;
+  const { name, units, role, archived } = hull.data.hull;
   return (
-    <div className="flex flex-col gap-8">
-      <title>{`${name} · Loftbench`}</title>
-      <div className="flex flex-col gap-3">
-        <h1 className="text-3xl font-bold tracking-tight break-words">{name}</h1>
-        <dl className="flex flex-wrap gap-x-8 gap-y-1 text-lg">
-          <div className="flex gap-2">
-            <dt className="text-muted">Units</dt>
-            <dd className="font-semibold">{unitsLabels[units]}</dd>
-          </div>
-          <div className="flex gap-2">
-            <dt className="text-muted">Your role</dt>
-            <dd className="font-semibold">{roleLabels[role]}</dd>
-          </div>
-        </dl>
-        {notes && <p className="max-w-prose whitespace-pre-line text-muted">{notes}</p>}
+    <PlanEditorProvider hull={hull.data.hull}>
+      <div className="flex flex-col gap-6">
+        <div className="flex flex-col gap-3">
+          <h1 className="text-3xl font-bold tracking-tight break-words">{name}</h1>
+          <dl className="flex flex-wrap gap-x-8 gap-y-1 text-lg">
+            <div className="flex gap-2">
+              <dt className="text-muted">Units</dt>
+              <dd className="font-semibold">{unitsLabels[units]}</dd>
+            </div>
+            <div className="flex gap-2">
+              <dt className="text-muted">Your role</dt>
+              <dd className="font-semibold">{roleLabels[role]}</dd>
+            </div>
+            {archived && (
+              <div className="flex gap-2">
+                <dt className="sr-only">State</dt>
+                <dd className="font-semibold text-caution">Archived</dd>
+              </div>
+            )}
+          </dl>
+          <PlanBar />
+        </div>
+        <HullSections hullId={hullId} />
+        <Outlet context={{ hull: hull.data.hull } satisfies HullOutletContext} />
       </div>
-      <HullSections />
-      <CrewSection hullId={hullId} hullName={name} canManage={role === 'owner'} currentUserId={session.data?.user?.id ?? null} />
-    </div>
+    </PlanEditorProvider>
   );
 }
 
-/** `/hulls/:hullId`: one hull's workspace. */
+/** `/hulls/:hullId/*`: one hull's workspace, its header and plan bar around the page of the tab chosen. */
 export function HullRoute() {
   const { hullId } = useParams();
   const id = Number(hullId);

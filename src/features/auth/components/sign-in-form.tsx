@@ -50,6 +50,11 @@ export function SignInForm() {
           Create an account
         </Link>
       </p>
+      <p className="text-muted">
+        <Link to="/forgot-password" className="inline-flex min-h-11 items-center font-semibold text-primary underline underline-offset-4">
+          Forgot your password?
+        </Link>
+      </p>
     </form>
   );
 }

@@ -69,11 +69,32 @@ export function HullList() {
   }
   if (hulls.data.hulls.length === 0) return <EmptyHulls />;
 
+  // Archived hulls are kept, but out of the way of the boats being built.
+  const current = hulls.data.hulls.filter((hull) => !hull.archived);
+  const archived = hulls.data.hulls.filter((hull) => hull.archived);
   return (
-    <ul className="grid grid-cols-1 gap-4 md:grid-cols-2 xl:grid-cols-3" aria-label="Your hulls">
-      {hulls.data.hulls.map((hull) => (
-        <HullCard key={hull.id} hull={hull} />
-      ))}
-    </ul>
+    <div className="flex flex-col gap-8">
+      {current.length > 0 ? (
+        <ul className="grid grid-cols-1 gap-4 md:grid-cols-2 xl:grid-cols-3" aria-label="Your hulls">
+          {current.map((hull) => (
+            <HullCard key={hull.id} hull={hull} />
+          ))}
+        </ul>
+      ) : (
+        <p className="text-lg text-muted">All your hulls are archived.</p>
+      )}
+      {archived.length > 0 && (
+        <section aria-labelledby="archived-hulls-heading" className="flex flex-col gap-3">
+          <h2 id="archived-hulls-heading" className="text-2xl font-bold">
+            Archived hulls
+          </h2>
+          <ul className="grid grid-cols-1 gap-4 md:grid-cols-2 xl:grid-cols-3" aria-label="Archived hulls">
+            {archived.map((hull) => (
+              <HullCard key={hull.id} hull={hull} />
+            ))}
+          </ul>
+        </section>
+      )}
+    </div>
   );
 }

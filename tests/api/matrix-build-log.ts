@@ -1,0 +1,53 @@
+import sharp from 'sharp';
+import { configFromEnv } from '../../server/config';
+import type { HullAccess } from '../../server/http/hull-access';
+import { buildPhotosAdd } from '../../server/services/build-log';
+import { defaultPhotoStorage } from '../../server/services/photo-storage';
+import type { Caller, MatrixFixture, MatrixRow } from './permission-matrix';
+
+/**
+ * Permission-matrix rows of the build log, spread into `matrix` in permission-matrix.ts. Owner, builder and
+ * helper keep the log; the designer only reads it; strangers get 404.
+ */
+const crew = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
+  owner: allowed.includes('owner') ? ok : 403,
+  builder: allowed.includes('builder') ? ok : 403,
+  designer: allowed.includes('designer') ? ok : 403,
+  helper: allowed.includes('helper') ? ok : 403,
+  stranger: 404,
+  anonymous: 401,
+});
+const allCrew: Caller[] = ['owner', 'builder', 'designer', 'helper'];
+const keepers: Caller[] = ['owner', 'builder', 'helper'];
+
+const tinyPng = () => sharp({ create: { width: 40, height: 30, channels: 3, background: '#b07040' } }).png().toBuffer();
+
+/** A photo on pt-frame-3 of the cell's fresh hull, stored in the same place the app's routes read from. */
+async function photoMade(f: MatrixFixture) {
+  const access: HullAccess = { hullId: f.hullId, role: 'owner', latestRevisionId: f.revisionId, units: 'mm' };
+  const storage = defaultPhotoStorage(configFromEnv(process.env).dataDir);
+  const [photo] = await buildPhotosAdd(access, f.people.owner.id, storage, { partId: 'pt-frame-3', stage: 'cut', caption: '', files: [{ buffer: await tinyPng(), originalname: 'm.png' }] });
+  return { photoId: photo!.id };
+}
+
+export const buildLogMatrix: Record<string, MatrixRow> = {
+  'GET /api/hulls/:hullId/build-log': { path: (f) => `/api/hulls/${f.hullId}/build-log`, expect: crew(200, allCrew) },
+  'GET /api/hulls/:hullId/build-log/parts/:partId': { path: (f) => `/api/hulls/${f.hullId}/build-log/parts/pt-frame-3`, expect: crew(200, allCrew) },
+  'POST /api/hulls/:hullId/build-log/events': {
+    path: (f) => `/api/hulls/${f.hullId}/build-log/events`,
+    body: () => ({ partId: 'pt-frame-3', stage: 'cut', action: 'done' }),
+    expect: crew(201, keepers),
+  },
+  'PUT /api/hulls/:hullId/build-log/settings': { path: (f) => `/api/hulls/${f.hullId}/build-log/settings`, body: () => ({ moveToleranceMm: 2 }), expect: crew(200, keepers) },
+  'POST /api/hulls/:hullId/build-log/parts/:partId/photos': {
+    path: (f) => `/api/hulls/${f.hullId}/build-log/parts/pt-frame-3/photos`,
+    prepare: async () => ({ png: await tinyPng() }),
+    multipart: (f) => ({ fields: { stage: 'cut' }, files: [{ field: 'photo', name: 'bench.png', content: f.prepared.png as Buffer }] }),
+    expect: crew(201, keepers),
+  },
+  'GET /api/hulls/:hullId/build-log/photos/:photoId': {
+    path: (f) => `/api/hulls/${f.hullId}/build-log/photos/${f.prepared.photoId as number}?size=thumb`,
+    prepare: photoMade,
+    expect: crew(200, allCrew),
+  },
+};
