@@ -15,6 +15,12 @@ import { INCHES_PER_FOOT, MM_PER_FOOT, MM_PER_INCH } from './units';
  */
 
 /** Default tolerance on the normalised custom points (t and h are fractions): how far from (0, 1) and (1, 0) the end points may be. */
+/**
+ * How much wider (mm of half-beam) than a one-pattern camber's reference a station may be and still take
+ * the pattern, clamped to its edge: splines through the table bulge a little between stations. Our choice.
+ */
+export const CAMBER_PATTERN_OVERHANG_MM = 0.5;
+
 export const CAMBER_POINT_TOLERANCE = 1e-9;
 
 // ---------------------------------------------------------------------------------------------------
@@ -459,7 +465,10 @@ function stationDeck(
     return { curve: makeCurve(camber, camberCrownMm(camber, 2 * bs, tol), bs), y: yIn, base: 0 };
   }
 
-  if (bs > referenceHalfBeamMm + tol) {
+  // A fair sheer bulges a few hundredths of a millimetre past its widest station between stations; a
+  // pattern cut for the table's widest beam still serves there (the difference is nothing at the saw), so
+  // only a station wider by more than CAMBER_PATTERN_OVERHANG_MM is refused, and one within it is clamped.
+  if (bs > referenceHalfBeamMm + Math.max(tol, CAMBER_PATTERN_OVERHANG_MM)) {
     throw issue(
       'camber-station-wider-than-pattern',
       `the station's half-beam of ${n(bs)} mm is wider than the camber pattern's half-beam of ` +

@@ -61,6 +61,18 @@ describe('parts computed on the server from the stored plan', () => {
     expect(body.results.find((r) => r.partId === 'pt-frame-3')!.ok).toBe(true);
   });
 
+  it('builds a bulkhead at the widest station under a one-pattern camber cut for that beam', async () => {
+    // Regression: the sheer spline bulges ~0.05 mm past the widest station (St 4, 930 mm) between
+    // stations, and the bulkhead's other face lies there; the pattern cut for 1860 mm must still serve.
+    const plan = demoPlan();
+    plan.parts.parts.push({ ...plan.parts.parts[1], id: 'pt-bulkhead-4', name: 'Bulkhead 4', stationId: 'st-4' } as (typeof plan.parts.parts)[number]);
+    const { hullId } = await hullWith(plan);
+    const body = (await owner.get(`/api/hulls/${hullId}/parts`)).body as PartsResponse;
+    const result = body.results.find((r) => r.partId === 'pt-bulkhead-4')!;
+    expect(result.issues).toEqual([]);
+    expect(result.ok).toBe(true);
+  });
+
   it('answers 404 for a part id the revision does not have', async () => {
     const { hullId } = await hullWith(demoPlan());
     expect((await owner.get(`/api/hulls/${hullId}/parts/no-such-part`)).status).toBe(404);

@@ -200,6 +200,13 @@ describe('camberHeightAt', () => {
     expectClose(camberHeightAt(custom, 200, 500, 1000), H * (0.96 - 0.75), 1e-9);
   });
 
+  it('lets a station a hair wider than a one-pattern reference take the pattern, clamped to its edge', () => {
+    // derived: a sheer spline bulging 0.05 mm past the widest station (as a fair table does between
+    // stations) takes the pattern as at its own beam: the same heights as a station exactly as wide.
+    for (const y of [0, 300, 700]) expectClose(camberHeightAt(parabola, y, 1000.05, 1000), camberHeightAt(parabola, y, 1000, 1000), 1e-9);
+    expectClose(camberHeightAt(parabola, 1000.05, 1000.05, 1000), 0, 1e-9);
+  });
+
   it('refuses the errors a person can make, saying what is wrong', () => {
     // Station wider than the pattern it is cut from.
     expect(thrown(() => camberHeightAt(parabola, 0, 1100, 1000))).toContain(
