@@ -61,7 +61,8 @@ export function createApp({ config, sequelize }: AppDeps): Express {
       strictTransportSecurity: config.trustProxy,
     }),
   );
-  app.use(pinoHttp({ level: config.logLevel, autoLogging: config.mode !== 'test' }));
+  // One JSON line per request is for a production log collector; in the demo it would bury the terminal.
+  app.use(pinoHttp({ level: config.logLevel, autoLogging: config.mode === 'production' }));
   app.use(express.json({ limit: '4mb' }));
   installAuth(app, config, sequelize);
   app.use(originCheck(config));

@@ -3,21 +3,13 @@ import { configFromEnv } from '../../server/config';
 import type { HullAccess } from '../../server/http/hull-access';
 import { buildPhotosAdd } from '../../server/services/build-log';
 import { defaultPhotoStorage } from '../../server/services/photo-storage';
-import type { Caller, MatrixFixture, MatrixRow } from './permission-matrix';
+import type { MatrixFixture, MatrixRow } from './permission-matrix';
+import { allCrew, crew, type Caller } from './matrix-statuses';
 
 /**
  * Permission-matrix rows of the build log, spread into `matrix` in permission-matrix.ts. Owner, builder and
  * helper keep the log; the designer only reads it; strangers get 404.
  */
-const crew = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
-  owner: allowed.includes('owner') ? ok : 403,
-  builder: allowed.includes('builder') ? ok : 403,
-  designer: allowed.includes('designer') ? ok : 403,
-  helper: allowed.includes('helper') ? ok : 403,
-  stranger: 404,
-  anonymous: 401,
-});
-const allCrew: Caller[] = ['owner', 'builder', 'designer', 'helper'];
 const keepers: Caller[] = ['owner', 'builder', 'helper'];
 
 const tinyPng = () => sharp({ create: { width: 40, height: 30, channels: 3, background: '#b07040' } }).png().toBuffer();

@@ -5,7 +5,8 @@ import { libraryPublish, libraryRevise } from '../../server/services/library';
 import { pinTake } from '../../server/services/library-pins';
 import { mailTokenNew } from '../../server/services/mail-tokens';
 import type { Camber } from '../../shared/geometry/camber-schema';
-import type { Caller, MatrixFixture, MatrixRow } from './permission-matrix';
+import type { MatrixFixture, MatrixRow } from './permission-matrix';
+import { allCrew, crew, editors, everyone, signedInOnly, type Caller } from './matrix-statuses';
 import { TEST_PASSWORD } from './support';
 
 /**
@@ -14,18 +15,6 @@ import { TEST_PASSWORD } from './support';
  * request needs something to exist first make it in `prepare`, fresh for every cell.
  */
 
-const everyone = (status: number): Record<Caller, number> => ({ owner: status, builder: status, designer: status, helper: status, stranger: status, anonymous: status });
-const signedInOnly = (status: number): Record<Caller, number> => ({ ...everyone(status), anonymous: 401 });
-const crew = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
-  owner: allowed.includes('owner') ? ok : 403,
-  builder: allowed.includes('builder') ? ok : 403,
-  designer: allowed.includes('designer') ? ok : 403,
-  helper: allowed.includes('helper') ? ok : 403,
-  stranger: 404,
-  anonymous: 401,
-});
-const allCrew: Caller[] = ['owner', 'builder', 'designer', 'helper'];
-const editors: Caller[] = ['owner', 'builder', 'designer'];
 /** An item the hull's designer wrote and shared with the hull's builder only: the author, someone who sees it, and everyone else. */
 const authorOnly = (ok: number): Record<Caller, number> => ({ owner: 404, builder: 403, designer: ok, helper: 404, stranger: 404, anonymous: 401 });
 const namedPeople = (ok: number): Record<Caller, number> => ({ owner: 404, builder: ok, designer: ok, helper: 404, stranger: 404, anonymous: 401 });

@@ -1,4 +1,5 @@
 import { demoPlan } from '../../server/seed/demo-plan';
+import { allCrew, crew, editors, everyone, signedInOnly, type Caller } from './matrix-statuses';
 import { collaborationMatrix } from './matrix-collaboration';
 import { buildLogMatrix } from './matrix-build-log';
 
@@ -7,8 +8,7 @@ import { buildLogMatrix } from './matrix-build-log';
  * permission-matrix.test.ts reads the app's routes from Express's router and fails when a route has no
  * row here (or a row names a route that no longer exists), then exercises every cell on the real server.
  */
-export const callers = ['owner', 'builder', 'designer', 'helper', 'stranger', 'anonymous'] as const;
-export type Caller = (typeof callers)[number];
+export { callers, type Caller } from './matrix-statuses';
 
 /** What a row's request needs: a fresh hull with a full crew, and a spare account to add to it. */
 export interface MatrixFixture {
@@ -38,19 +38,6 @@ export interface MatrixRow {
   prepare?: (f: MatrixFixture) => Promise<Record<string, unknown>>;
 }
 
-const everyone = (status: number): Record<Caller, number> => ({ owner: status, builder: status, designer: status, helper: status, stranger: status, anonymous: status });
-const signedInOnly = (status: number): Record<Caller, number> => ({ ...everyone(status), anonymous: 401 });
-/** Crew members per capability; strangers 404 (the hull's existence is not revealed), anonymous 401. */
-const crew = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
-  owner: allowed.includes('owner') ? ok : 403,
-  builder: allowed.includes('builder') ? ok : 403,
-  designer: allowed.includes('designer') ? ok : 403,
-  helper: allowed.includes('helper') ? ok : 403,
-  stranger: 404,
-  anonymous: 401,
-});
-export const allCrew: Caller[] = ['owner', 'builder', 'designer', 'helper'];
-
 /** A change to the lines only, which owner, builder and designer may all make. */
 function linesChanged() {
   const plan = demoPlan();
@@ -58,7 +45,6 @@ function linesChanged() {
   (keel.cells as Record<string, { y: number; z: number }>)['st-4'] = { y: 0, z: 44 };
   return plan;
 }
-const editors: Caller[] = ['owner', 'builder', 'designer'];
 const offsetsCsv = 'line,kind,fixed,angle,knuckle,A,B\nStation position,x,,,,0,600\nWL 200,waterline,200,,,300,350\n';
 
 let counter = 0;
