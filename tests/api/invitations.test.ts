@@ -17,7 +17,7 @@ beforeAll(async () => {
 });
 afterAll(() => server.close());
 
-async function newHull(name = 'Whimbrel dinghy') {
+async function newHull(name = 'Saltgrass punt dinghy') {
   return hullCreate(owner.id, { name, units: 'mm', notes: '' });
 }
 
@@ -38,7 +38,7 @@ describe('inviting by e-mail', () => {
     const { hull, res, mail, url, token } = await invite(email, 'builder');
 
     expect(res.body.invitation).toMatchObject({ email, role: 'builder', invitedByName: owner.displayName });
-    expect(mail.subject).toBe(`${owner.displayName} invites you to the crew of Whimbrel dinghy`);
+    expect(mail.subject).toBe(`${owner.displayName} invites you to the crew of Saltgrass punt dinghy`);
     expect(mail.text).toContain('as a builder');
     expect(url.pathname).toBe('/invitation');
     expect(token).toMatch(/^[A-Za-z0-9_-]{43}$/);
@@ -61,7 +61,7 @@ describe('inviting by e-mail', () => {
 
     const preview = await visitor.post('/api/invitations/preview').send({ token });
     expect(preview.status).toBe(200);
-    expect(preview.body.invitation).toMatchObject({ hullName: 'Whimbrel dinghy', role: 'helper', email, invitedByName: owner.displayName });
+    expect(preview.body.invitation).toMatchObject({ hullName: 'Saltgrass punt dinghy', role: 'helper', email, invitedByName: owner.displayName });
 
     const accepted = await visitor.post('/api/invitations/accept').send({ token, newAccount: { displayName: 'Noor Wend', password: 'a long enough password' } });
     expect(accepted.status, JSON.stringify(accepted.body)).toBe(201);

@@ -19,7 +19,7 @@ function boardOf(parts: BuildPartState[]): BuildBoardResponse {
 const partOf = (state: BuildPartState): BuildPartResponse => ({ state, events: [], photos: [], bevels: [{ side: 'port', edge: 'skin', girthMm: 120, tiltDeg: 12.5, slidingBevelDeg: 77.5, kind: 'under', faceDown: 'aft' }] });
 
 function server(role: Role, state: BuildPartState, more: Handlers = {}) {
-  const current = { hull: hull({ id: 3, name: 'Curlew', role }) };
+  const current = { hull: hull({ id: 3, name: 'Tidewrack', role }) };
   return stubApi({
     'GET /api/session': sessionOf(ann),
     'GET /api/hulls/3': () => ({ body: { hull: current.hull } }),

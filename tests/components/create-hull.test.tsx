@@ -37,7 +37,7 @@ describe('create-hull form', () => {
     const api = stubApi(signedIn);
     const { user } = renderApp('/hulls/new');
 
-    await user.type(await screen.findByLabelText('Hull name'), 'Curlew');
+    await user.type(await screen.findByLabelText('Hull name'), 'Tidewrack');
     await user.click(screen.getByLabelText('Notes'));
     await user.paste('x'.repeat(2001));
     await user.click(screen.getByRole('button', { name: 'Create hull' }));
@@ -47,7 +47,7 @@ describe('create-hull form', () => {
   });
 
   it('sends the hull and opens its page', async () => {
-    const created = hull({ id: 12, name: 'Curlew', units: 'ftin', notes: 'Plans from the designer, sheet 3 of 9.' });
+    const created = hull({ id: 12, name: 'Tidewrack', units: 'ftin', notes: 'Plans from the designer, sheet 3 of 9.' });
     const api = stubApi({
       ...signedIn,
       'POST /api/hulls': { status: 201, body: { hull: created } },
@@ -57,12 +57,12 @@ describe('create-hull form', () => {
     });
     const { user, here } = renderApp('/hulls/new');
 
-    await user.type(await screen.findByLabelText('Hull name'), '  Curlew ');
+    await user.type(await screen.findByLabelText('Hull name'), '  Tidewrack ');
     await user.selectOptions(screen.getByLabelText('Units'), 'Feet-inches-eighths');
     await user.type(screen.getByLabelText('Notes'), 'Plans from the designer, sheet 3 of 9.');
     await user.click(screen.getByRole('button', { name: 'Create hull' }));
 
-    expect(await screen.findByRole('heading', { name: 'Curlew', level: 1 })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Tidewrack', level: 1 })).toBeTruthy();
     expect(here()).toBe('/hulls/12');
     expect(screen.getByText('Feet-inches-eighths')).toBeTruthy();
     expect(api.writes()).toMatchObject([
@@ -70,7 +70,7 @@ describe('create-hull form', () => {
         method: 'POST',
         path: '/api/hulls',
         headers: { 'x-csrf-token': 'token-1' },
-        body: { name: 'Curlew', units: 'ftin', notes: 'Plans from the designer, sheet 3 of 9.' },
+        body: { name: 'Tidewrack', units: 'ftin', notes: 'Plans from the designer, sheet 3 of 9.' },
       },
     ]);
   });
@@ -79,7 +79,7 @@ describe('create-hull form', () => {
     stubApi({ ...signedIn, 'POST /api/hulls': apiError(400, 'invalid_input', 'You already have a hull with this name', { field: 'name' }) });
     const { user, here } = renderApp('/hulls/new');
 
-    await user.type(await screen.findByLabelText('Hull name'), 'Curlew');
+    await user.type(await screen.findByLabelText('Hull name'), 'Tidewrack');
     await user.click(screen.getByRole('button', { name: 'Create hull' }));
 
     await screen.findByText('You already have a hull with this name');

@@ -8,14 +8,14 @@ import { errorUnder, renderApp, screen } from './render-app';
 
 const ola = { id: 4, email: 'ola.berg@example.test', displayName: 'Ola Berg' };
 
-/** Hull 3, "Curlew", with Ann (signed in) in `myRole`; `more` adds handlers that may change the crew as the server would. */
+/** Hull 3, "Tidewrack", with Ann (signed in) in `myRole`; `more` adds handlers that may change the crew as the server would. */
 function crewServer(myRole: Role, more: (crew: CrewMember[]) => Handlers = () => ({})) {
   const crew: CrewMember[] = [member(ann, myRole), member(tomas, 'builder'), member(priya, 'helper')];
   if (myRole !== 'owner') crew.push(member(ola, 'owner'));
   const myRoleNow = () => crew.find((m) => m.userId === ann.id)?.role ?? myRole;
   return stubApi({
     'GET /api/session': sessionOf(ann),
-    'GET /api/hulls/3': () => ({ body: { hull: hull({ id: 3, name: 'Curlew', role: myRoleNow() }) } }),
+    'GET /api/hulls/3': () => ({ body: { hull: hull({ id: 3, name: 'Tidewrack', role: myRoleNow() }) } }),
     'GET /api/hulls/3/crew': () => ({ body: { crew: crew.map((m) => ({ ...m })) } }),
     ...planHandlers(3),
     ...more(crew),
@@ -81,7 +81,7 @@ describe('Crew on the hull page', () => {
     crewServer('designer');
     renderApp('/hulls/3');
 
-    expect(await screen.findByRole('heading', { name: 'Curlew', level: 1 })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Tidewrack', level: 1 })).toBeTruthy();
     expect(screen.getByText('Your role').nextElementSibling?.textContent).toBe('Designer');
     expect(screen.getByText('Units').nextElementSibling?.textContent).toBe('Millimetres');
     const guide = screen.getByRole('heading', { name: 'What each role may do' }).closest('section');

@@ -46,7 +46,7 @@ const results: PartsResponse = {
 function framesServer(role: Role, parts: Handlers[string] = apiError(404, 'not_found', 'No such API route: GET /api/hulls/3/parts')) {
   return stubApi({
     'GET /api/session': sessionOf(ann),
-    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role }) } },
+    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role }) } },
     ...planHandlers(3, { plan: framesPlan(), revision: revision(4) }),
     'GET /api/hulls/3/parts': parts,
   });

@@ -16,7 +16,7 @@ const changes: PlanChange[] = [
 function historyServer(role: Role = 'owner', more: Handlers = {}) {
   return stubApi({
     'GET /api/session': sessionOf(ann),
-    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role }) } },
+    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role }) } },
     ...planHandlers(3, { plan: smallPlan(), revision: revision(7) }),
     'GET /api/hulls/3/plan/revisions': { body: { revisions: [revision(7, { summary: 'Chine at St 3' }), revision(6, { authorName: 'Tomas Reed', summary: 'Offsets from sheet 2' }), revision(5)] } },
     'GET /api/hulls/3/plan/compare': (call) => ({ body: { from: Number(new URLSearchParams(call.search).get('from')), to: Number(new URLSearchParams(call.search).get('to')), changes } }),

@@ -7,7 +7,7 @@ import { planHandlers } from './plan-fixtures';
 import { errorUnder, renderApp, screen } from './render-app';
 
 function server(role: Role, more: (current: { hull: HullSummary }) => Handlers = () => ({})) {
-  const current = { hull: hull({ id: 3, name: 'Curlew', role }) };
+  const current = { hull: hull({ id: 3, name: 'Tidewrack', role }) };
   return stubApi({
     'GET /api/session': sessionOf(ann),
     'GET /api/hulls/3': () => ({ body: { hull: current.hull } }),
@@ -34,11 +34,11 @@ describe('Hull settings', () => {
     await user.clear(name);
     await user.click(screen.getByRole('button', { name: 'Rename hull' }));
     errorUnder(screen.getByLabelText('New name'), 'Give the hull a name');
-    await user.type(screen.getByLabelText('New name'), 'Curlew II');
+    await user.type(screen.getByLabelText('New name'), 'Tidewrack II');
     await user.click(screen.getByRole('button', { name: 'Rename hull' }));
 
-    expect(await screen.findByRole('heading', { name: 'Curlew II', level: 1 })).toBeTruthy();
-    expect(api.writes()).toMatchObject([{ method: 'PATCH', path: '/api/hulls/3', body: { name: 'Curlew II' } }]);
+    expect(await screen.findByRole('heading', { name: 'Tidewrack II', level: 1 })).toBeTruthy();
+    expect(api.writes()).toMatchObject([{ method: 'PATCH', path: '/api/hulls/3', body: { name: 'Tidewrack II' } }]);
   });
 
   it('lets the owner archive after asking, and bring it back', async () => {
@@ -73,7 +73,7 @@ describe('Hull list', () => {
   it('lists archived hulls apart from the current ones', async () => {
     stubApi({
       'GET /api/session': sessionOf(ann),
-      'GET /api/hulls': { body: { hulls: [hull({ id: 3, name: 'Curlew' }), hull({ id: 4, name: 'Old punt', archived: true }), hull({ id: 5, name: 'Whimbrel' })] } },
+      'GET /api/hulls': { body: { hulls: [hull({ id: 3, name: 'Tidewrack' }), hull({ id: 4, name: 'Old punt', archived: true }), hull({ id: 5, name: 'Saltgrass punt' })] } },
     });
     renderApp('/hulls');
     const current = await screen.findByRole('list', { name: 'Your hulls' });

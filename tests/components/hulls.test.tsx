@@ -20,8 +20,8 @@ describe('Hulls page', () => {
       'GET /api/hulls': {
         body: {
           hulls: [
-            hull({ id: 3, name: 'Curlew', units: 'ftin', role: 'owner', updatedAt: '2025-04-11T16:40:00.000Z' }),
-            hull({ id: 8, name: 'Whimbrel', units: 'mm', role: 'helper' }),
+            hull({ id: 3, name: 'Tidewrack', units: 'ftin', role: 'owner', updatedAt: '2025-04-11T16:40:00.000Z' }),
+            hull({ id: 8, name: 'Saltgrass punt', units: 'mm', role: 'helper' }),
           ],
         },
       },
@@ -31,7 +31,7 @@ describe('Hulls page', () => {
     const list = await screen.findByRole('list', { name: 'Your hulls' });
     const links = within(list).getAllByRole('link');
     expect(links.map((a) => a.getAttribute('href'))).toEqual(['/hulls/3', '/hulls/8']);
-    expect(links[0].textContent).toContain('Curlew');
+    expect(links[0].textContent).toContain('Tidewrack');
     expect(links[0].textContent).toContain('Feet-inches-eighths');
     expect(links[0].textContent).toContain('Owner');
     expect(links[0].textContent).toContain('11 Apr 2025');
@@ -44,14 +44,14 @@ describe('Hulls page', () => {
     let fail = true;
     stubApi({
       'GET /api/session': sessionOf(ann),
-      'GET /api/hulls': () => (fail ? apiError(500, 'internal', 'The server had a problem. Try again in a moment.') : { body: { hulls: [hull({ name: 'Curlew' })] } }),
+      'GET /api/hulls': () => (fail ? apiError(500, 'internal', 'The server had a problem. Try again in a moment.') : { body: { hulls: [hull({ name: 'Tidewrack' })] } }),
     });
     const { user } = renderApp('/hulls');
 
     expect((await screen.findByRole('alert')).textContent).toContain('Your hulls could not be loaded.');
     fail = false;
     await user.click(screen.getByRole('button', { name: 'Try again' }));
-    expect(await screen.findByRole('link', { name: /Curlew/ })).toBeTruthy();
+    expect(await screen.findByRole('link', { name: /Tidewrack/ })).toBeTruthy();
   });
 
   it('shows a hull that is not mine (404) as not found, with a way back', async () => {

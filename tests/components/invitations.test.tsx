@@ -6,7 +6,7 @@ import { planHandlers } from './plan-fixtures';
 import { errorUnder, renderApp, screen } from './render-app';
 
 const TOKEN = 'Ab3dEf6hIj9lMn2pQr5tUv8xYz1bCd4fGh7jKl0nOp_';
-const preview = { hullName: 'Curlew', role: 'helper', email: 'noor.wend@example.test', invitedByName: 'Ann Marsh', expiresAt: '2025-05-11T09:00:00.000Z' };
+const preview = { hullName: 'Tidewrack', role: 'helper', email: 'noor.wend@example.test', invitedByName: 'Ann Marsh', expiresAt: '2025-05-11T09:00:00.000Z' };
 
 afterEach(() => sessionStorage.clear());
 
@@ -14,7 +14,7 @@ describe('inviting by e-mail (hull owner)', () => {
   function ownerServer(more = {}) {
     return stubApi({
       'GET /api/session': sessionOf(ann),
-      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role: 'owner' }) } },
+      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role: 'owner' }) } },
       ...planHandlers(3),
       ...more,
     });
@@ -85,12 +85,12 @@ describe('the invitation link', () => {
         signedIn = true;
         return { status: 201, body: { hullId: 3, role: 'helper', alreadyMember: false } };
       },
-      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role: 'helper' }) } },
+      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role: 'helper' }) } },
       'GET /api/hulls/3/crew': { body: { crew: [] } },
       ...planHandlers(3),
     });
     const { user, here } = renderApp(`/invitation#${TOKEN}`);
-    expect((await screen.findByText(/invites/)).closest('p')?.textContent).toContain('Ann Marsh invites noor.wend@example.test onto the crew of Curlew as Helper');
+    expect((await screen.findByText(/invites/)).closest('p')?.textContent).toContain('Ann Marsh invites noor.wend@example.test onto the crew of Tidewrack as Helper');
     await user.type(screen.getByLabelText('Your name'), 'Noor Wend');
     await user.type(screen.getByLabelText('Choose a password'), 'short');
     await user.click(screen.getByRole('button', { name: 'Make my account and join the crew' }));
@@ -100,7 +100,7 @@ describe('the invitation link', () => {
     await user.clear(screen.getByLabelText('Choose a password'));
     await user.type(screen.getByLabelText('Choose a password'), 'a long enough password');
     await user.click(screen.getByRole('button', { name: 'Make my account and join the crew' }));
-    expect(await screen.findByRole('heading', { name: 'Curlew', level: 1 })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Tidewrack', level: 1 })).toBeTruthy();
     expect(here()).toBe('/hulls/3');
     const accept = api.writes().find((w) => w.path === '/api/invitations/accept');
     expect(accept?.body).toEqual({ token: TOKEN, newAccount: { displayName: 'Noor Wend', password: 'a long enough password' } });
@@ -114,14 +114,14 @@ describe('the invitation link', () => {
       'GET /api/session': sessionOf(ann),
       'POST /api/invitations/preview': { body: { invitation: preview } },
       'POST /api/invitations/accept': { body: { hullId: 3, role: 'helper', alreadyMember: false } },
-      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role: 'helper' }) } },
+      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role: 'helper' }) } },
       'GET /api/hulls/3/crew': { body: { crew: [] } },
       ...planHandlers(3),
     });
     const { user } = renderApp(`/invitation#${TOKEN}`);
     expect(await screen.findByText(/You are signed in as/)).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Accept and join the crew' }));
-    await screen.findByRole('heading', { name: 'Curlew', level: 1 });
+    await screen.findByRole('heading', { name: 'Tidewrack', level: 1 });
     expect(api.writes().find((w) => w.path === '/api/invitations/accept')?.body).toEqual({ token: TOKEN });
   });
 

@@ -113,7 +113,7 @@ describe('publishing a camber curve', () => {
 });
 
 describe('taking an item into a hull', () => {
-  const hulls = [hull({ id: 3, name: 'Curlew', role: 'builder' }), hull({ id: 4, name: 'Sam’s pram', role: 'helper' }), hull({ id: 6, name: 'Old punt', role: 'owner', archived: true })];
+  const hulls = [hull({ id: 3, name: 'Tidewrack', role: 'builder' }), hull({ id: 4, name: 'Sam’s pram', role: 'helper' }), hull({ id: 6, name: 'Old punt', role: 'owner', archived: true })];
 
   it('offers only hulls I may change, asks for one, then takes the chosen revision on the hull’s latest', async () => {
     const pin: HullPin = { id: 2, hullId: 3, kind: 'camber', itemId: 5, visible: true, itemName: 'Dory deck camber', authorName: tomas.displayName, revisionId: 11, revisionNumber: 1, latestRevisionId: 12, latestRevisionNumber: 2, pinnedAt: '2025-05-03T09:00:00.000Z', pinnedByName: ann.displayName, planRevisionId: 8 };
@@ -127,15 +127,15 @@ describe('taking an item into a hull', () => {
     const { user } = renderApp('/library/5');
     const form = (await screen.findByRole('heading', { name: 'Take into hull' })).closest('form')!;
     const hullSelect = within(form).getByLabelText('Hull') as HTMLSelectElement;
-    await waitFor(() => expect([...hullSelect.options].map((o) => o.textContent)).toEqual(['Choose a hull…', 'Curlew']));
+    await waitFor(() => expect([...hullSelect.options].map((o) => o.textContent)).toEqual(['Choose a hull…', 'Tidewrack']));
     await user.click(within(form).getByRole('button', { name: 'Take into hull' }));
     errorUnder(within(form).getByLabelText('Hull'), 'Choose the hull to take it into');
     expect(api.writes()).toEqual([]);
 
-    await user.selectOptions(hullSelect, 'Curlew');
+    await user.selectOptions(hullSelect, 'Tidewrack');
     await user.selectOptions(within(form).getByLabelText('Revision'), 'Revision 1');
     await user.click(within(form).getByRole('button', { name: 'Take into hull' }));
-    expect(await screen.findByText('Taken into Curlew.')).toBeTruthy();
+    expect(await screen.findByText('Taken into Tidewrack.')).toBeTruthy();
     expect(api.writes()).toMatchObject([{ method: 'POST', path: '/api/hulls/3/pins', body: { itemId: 5, revisionId: 11, baseRevisionId: 7 } }]);
     expect(screen.getByRole('link', { name: 'See what the hull took from the Library' }).getAttribute('href')).toBe('/hulls/3/library');
   });
@@ -151,14 +151,14 @@ describe('taking an item into a hull', () => {
     const { user } = renderApp('/library/5');
     const form = (await screen.findByRole('heading', { name: 'Take into hull' })).closest('form')!;
     await waitFor(() => expect((within(form).getByLabelText('Hull') as HTMLSelectElement).options).toHaveLength(2));
-    await user.selectOptions(within(form).getByLabelText('Hull'), 'Curlew');
+    await user.selectOptions(within(form).getByLabelText('Hull'), 'Tidewrack');
     await user.click(within(form).getByRole('button', { name: 'Take into hull' }));
     expect((await within(form).findByRole('alert')).textContent).toContain('no deck set up yet');
   });
 });
 
 describe('notices and the comparison', () => {
-  const notice = { id: 9, hullId: 3, hullName: 'Curlew', pinId: 2, itemId: 5, itemName: 'Dory deck camber', kind: 'camber' as const, authorName: tomas.displayName, pinnedRevisionNumber: 1, newRevisionId: 12, newRevisionNumber: 2, createdAt: '2025-05-04T08:00:00.000Z' };
+  const notice = { id: 9, hullId: 3, hullName: 'Tidewrack', pinId: 2, itemId: 5, itemName: 'Dory deck camber', kind: 'camber' as const, authorName: tomas.displayName, pinnedRevisionNumber: 1, newRevisionId: 12, newRevisionNumber: 2, createdAt: '2025-05-04T08:00:00.000Z' };
 
   it('shows the count in the header and lists the notice; Stay dismisses it', async () => {
     let open = [notice];
@@ -204,7 +204,7 @@ describe('notices and the comparison', () => {
     const data = compareResponse();
     const api = stubApi({
       ...signedIn,
-      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role: 'builder' }) } },
+      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role: 'builder' }) } },
       ...planHandlers(3, { plan: smallPlan(), revision: revision(8) }),
       'GET /api/hulls/3/pins/2/compare': { body: data },
       'POST /api/hulls/3/pins/2/move': { status: 201, body: { pin: { ...data.pin, revisionId: 12, revisionNumber: 2 }, revision: revision(9), movement: data.movement } },
@@ -230,7 +230,7 @@ describe('notices and the comparison', () => {
   it('lets a helper look but not move', async () => {
     stubApi({
       ...signedIn,
-      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role: 'helper' }) } },
+      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role: 'helper' }) } },
       ...planHandlers(3, { plan: smallPlan(), revision: revision(8) }),
       'GET /api/hulls/3/pins/2/compare': { body: { ...compareResponse(), cutPartsKnown: false, movement: compareResponse().movement.map((m) => ({ ...m, cut: false })) } },
     });

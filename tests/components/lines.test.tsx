@@ -11,7 +11,7 @@ import { planHandlers, revision, smallPlan } from './plan-fixtures';
 function linesServer(role: Role = 'owner', more: Handlers = {}, plan: Plan = smallPlan()) {
   return stubApi({
     'GET /api/session': sessionOf(ann),
-    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role }) } },
+    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role }) } },
     ...planHandlers(3, { plan, revision: revision(4) }),
     ...more,
   });
@@ -273,7 +273,7 @@ describe('Lines: import', () => {
   it('shows each bad cell of a refused file', async () => {
     stubApi({
       'GET /api/session': sessionOf(ann),
-      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew' }) } },
+      'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack' }) } },
       ...planHandlers(3, { plan: smallPlan(), revision: revision(4) }),
       'POST /api/hulls/3/plan/import/offsets': {
         status: 400,

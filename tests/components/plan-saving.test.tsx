@@ -17,7 +17,7 @@ function withWaterline(plan: Plan, stationId: string, value: number): Plan {
 function server(more: Handlers = {}) {
   return stubApi({
     'GET /api/session': sessionOf(ann),
-    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Curlew', role: 'builder' }) } },
+    'GET /api/hulls/3': { body: { hull: hull({ id: 3, name: 'Tidewrack', role: 'builder' }) } },
     ...planHandlers(3, { plan: smallPlan(), revision: revision(4) }),
     ...more,
   });
@@ -173,10 +173,10 @@ describe('Save revision', () => {
   it('after a 409 can keep my version whole as a copy of the hull', async () => {
     const api = server({
       'POST /api/hulls/3/plan/revisions': { status: 409, body: { error: { code: 'stale_revision', message: 'Someone saved a newer revision', latestRevisionId: 5, latestRevision: revision(5) } } },
-      'POST /api/hulls/3/copy': { status: 201, body: { hull: hull({ id: 9, name: 'Curlew (my version)' }) } },
+      'POST /api/hulls/3/copy': { status: 201, body: { hull: hull({ id: 9, name: 'Tidewrack (my version)' }) } },
       'DELETE /api/hulls/3/plan/draft': { status: 204 },
       'GET /api/hulls': { body: { hulls: [] } },
-      'GET /api/hulls/9': { body: { hull: hull({ id: 9, name: 'Curlew (my version)' }) } },
+      'GET /api/hulls/9': { body: { hull: hull({ id: 9, name: 'Tidewrack (my version)' }) } },
       'GET /api/hulls/9/crew': { body: { crew: [member(ann, 'owner')] } },
       ...planHandlers(9, { plan: withWaterline(smallPlan(), 'st-1', 321), revision: revision(6, { hullId: 9 }) }),
     });
@@ -188,13 +188,13 @@ describe('Save revision', () => {
     await user.click(screen.getByRole('button', { name: 'Save revision' }));
     await user.click(screen.getByRole('button', { name: 'Save revision' }));
     const dialog = await screen.findByRole('dialog');
-    expect((within(dialog).getByLabelText('Name of the copy') as HTMLInputElement).value).toBe('Curlew (my version)');
+    expect((within(dialog).getByLabelText('Name of the copy') as HTMLInputElement).value).toBe('Tidewrack (my version)');
     await user.click(within(dialog).getByRole('button', { name: 'Save my version as a copy of the hull' }));
 
-    await screen.findByRole('heading', { name: 'Curlew (my version)', level: 1 });
+    await screen.findByRole('heading', { name: 'Tidewrack (my version)', level: 1 });
     expect(here()).toBe('/hulls/9/lines');
     const copy = api.calls.find((c) => c.path === '/api/hulls/3/copy')!;
-    expect((copy.body as { name: string; plan: Plan }).name).toBe('Curlew (my version)');
+    expect((copy.body as { name: string; plan: Plan }).name).toBe('Tidewrack (my version)');
     expect((copy.body as { plan: Plan }).plan.lines.lines[0]!.cells['st-1']).toBe(321);
   });
 

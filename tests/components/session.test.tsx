@@ -21,7 +21,7 @@ describe('signed-in pages', () => {
     stubApi({
       'GET /api/session': () => (state === 'ended' ? signedOutSession : sessionOf(ann)),
       'GET /api/hulls/7': () => {
-        if (state === 'signed-in') return { body: { hull: hull({ id: 7, name: 'Whimbrel' }) } };
+        if (state === 'signed-in') return { body: { hull: hull({ id: 7, name: 'Saltgrass punt' }) } };
         state = 'ended';
         return apiError(401, 'signed_out', 'Sign in first');
       },
@@ -43,7 +43,7 @@ describe('signed-in pages', () => {
     await user.type(screen.getByLabelText('Password'), 'the right password');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByRole('heading', { name: 'Whimbrel', level: 1 })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Saltgrass punt', level: 1 })).toBeTruthy();
     expect(here()).toBe('/hulls/7');
   });
 
@@ -51,7 +51,7 @@ describe('signed-in pages', () => {
     let signedIn = true;
     const api = stubApi({
       'GET /api/session': () => (signedIn ? sessionOf(ann, 'token-ann') : signedOutSession),
-      'GET /api/hulls/7': { body: { hull: hull({ id: 7, name: 'Whimbrel' }) } },
+      'GET /api/hulls/7': { body: { hull: hull({ id: 7, name: 'Saltgrass punt' }) } },
       'GET /api/hulls/7/crew': { body: { crew: [member(ann, 'owner')] } },
       ...planHandlers(7),
       'POST /api/auth/sign-out': () => {
@@ -61,14 +61,14 @@ describe('signed-in pages', () => {
     });
     const { user, here } = renderApp('/hulls/7');
 
-    await screen.findByRole('heading', { name: 'Whimbrel', level: 1 });
+    await screen.findByRole('heading', { name: 'Saltgrass punt', level: 1 });
     await user.click(screen.getByRole('button', { name: 'Sign out' }));
 
     await screen.findByRole('button', { name: 'Sign in' });
     expect(here()).toBe('/sign-in');
     expect(api.writes()).toMatchObject([{ method: 'POST', path: '/api/auth/sign-out', headers: { 'x-csrf-token': 'token-ann' } }]);
     await waitFor(() => expect(screen.queryByRole('button', { name: 'Sign out' })).toBeNull());
-    expect(screen.queryByText('Whimbrel')).toBeNull();
+    expect(screen.queryByText('Saltgrass punt')).toBeNull();
   });
 
   it('show a page of its own for an address that does not exist, with a way back', async () => {

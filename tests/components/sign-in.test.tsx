@@ -56,13 +56,13 @@ describe('sign-in form', () => {
         signedIn = true;
         return { body: { user: ann } };
       },
-      'GET /api/hulls': { body: { hulls: [hull({ name: 'Curlew' })] } },
+      'GET /api/hulls': { body: { hulls: [hull({ name: 'Tidewrack' })] } },
     });
     const { user, here } = renderApp('/sign-in?next=%2Fhulls');
 
     await signInWith(user, 'ann.marsh@example.test', 'the right password');
 
-    expect(await screen.findByRole('link', { name: /Curlew/ })).toBeTruthy();
+    expect(await screen.findByRole('link', { name: /Tidewrack/ })).toBeTruthy();
     expect(here()).toBe('/hulls');
     expect(api.writes()[0]).toMatchObject({ body: { email: 'ann.marsh@example.test', password: 'the right password' }, headers: { 'x-csrf-token': 'token-anon' } });
   });
