@@ -5,34 +5,18 @@
  * a throw-away MariaDB with durable settings (innodb_flush_log_at_trx_commit=1).
  */
 import autocannon from 'autocannon';
-import type { AddressInfo } from 'node:net';
-import { createApp } from '../../server/app';
-import { configFromEnv } from '../../server/config';
-import { createSequelize } from '../../server/db';
-import { requireUser } from '../../server/http/auth';
-import { hullCreate } from '../../server/services/hulls';
-import { revisionSave } from '../../server/services/plans';
-import { userCreate } from '../../server/services/users';
-import { demoPlan } from '../../server/seed/demo-plan';
-import type { Plan } from '../../shared/geometry/plan-schema';
+import { fork } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import type { BenchServerReady } from './plan-http-server';
 
-const ORIGIN = 'http://bench.loftbench.test';
-const config = { ...configFromEnv(process.env), allowedOrigins: [ORIGIN], logLevel: 'silent', clientDir: null };
-const sequelize = createSequelize(config.db);
-const app = createApp({ config, sequelize });
-// The constant route goes through exactly the same middleware (helmet, logging, JSON, session, passport,
-// origin check, the signed-in guard) as the plan read.
-app.get('/bench/constant', requireUser, (_req, res) => {
-  res.json({ ok: true });
-});
-
-/** A plan of about 50 KB: the demo lines with many more waterlines. */
-function bigPlan(): Plan {
-  const plan = demoPlan();
-  for (let i = 0; plan.lines.lines.length < 400 && JSON.stringify(plan).length < 50_000; i += 1) {
-    plan.lines.lines.push({ id: `ln-wl-${i}`, name: `WL ${200 + i * 10}`, kind: 'waterline', z: 200 + i * 10, knuckle: null, cells: Object.fromEntries(plan.lines.stations.map((s, k) => [s.id, 400 + i + k * 3.25])) });
-  }
-  return plan;
+/** Start the server in its own process (plan-http-server.ts) and wait until it has its hulls and session. */
+async function startServer() {
+  const child = fork(fileURLToPath(new URL('./plan-http-server.ts', import.meta.url)), [], { execArgv: ['--import', 'tsx'], env: process.env });
+  const ready = await new Promise<BenchServerReady>((resolve, reject) => {
+    child.once('message', (m) => resolve(m as BenchServerReady));
+    child.once('exit', (code) => reject(new Error(`the bench server stopped (exit ${code})`)));
+  });
+  return { ready, stop: () => child.disconnect() };
 }
 
 function percentile(values: number[], p: number) {
@@ -41,30 +25,17 @@ function percentile(values: number[], p: number) {
 }
 
 async function main() {
-  const server = app.listen(0, '127.0.0.1');
-  await new Promise((r) => server.once('listening', r));
-  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-  const user = await userCreate({ email: `bench-${Date.now()}@example.test`, displayName: 'Bench', password: 'bench password 1' }, 10);
-  const hull = await hullCreate(user.id, { name: 'Bench hull', units: 'mm', notes: '' });
-  const plan = bigPlan();
-  await revisionSave({ hullId: hull.id, units: 'mm', authorId: user.id, role: 'owner', baseRevisionId: null, plan });
-  const login = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json', origin: ORIGIN }, body: JSON.stringify({ email: user.email, password: 'bench password 1' }) });
-  const cookie = login.headers.get('set-cookie')!.split(';')[0];
-  const planBytes = (await (await fetch(`${base}/api/hulls/${hull.id}/plan`, { headers: { cookie } })).text()).length;
+  const { ready, stop } = await startServer();
+  const { base, cookie, plan, origin } = ready;
+  const planBytes = (await (await fetch(`${base}/api/hulls/${ready.readHullId}/plan`, { headers: { cookie } })).text()).length;
 
   const run = (path: string) =>
     autocannon({ url: `${base}${path}`, connections: 50, duration: Number(process.env.BENCH_SECONDS ?? 10), headers: { cookie } });
   await run('/bench/constant'); // warm-up of both paths
   const constant = await run('/bench/constant');
-  const read = await run(`/api/hulls/${hull.id}/plan`);
+  const read = await run(`/api/hulls/${ready.readHullId}/plan`);
 
-  // Saves: 10 writers, each on its own hull so each chains its revisions without conflicts.
-  const writers = await Promise.all(
-    Array.from({ length: 10 }, async (_, w) => {
-      const h = await hullCreate(user.id, { name: `Bench save ${w}`, units: 'mm', notes: '' });
-      return { hullId: h.id, base: null as number | null };
-    }),
-  );
+  const writers = ready.writerHullIds.map((hullId) => ({ hullId, base: null as number | null }));
   const latencies: number[] = [];
   const until = Date.now() + Number(process.env.BENCH_SECONDS ?? 10) * 1000;
   let failures = 0;
@@ -74,7 +45,7 @@ async function main() {
         const p = structuredClone(plan);
         (p.lines.lines[3].cells as Record<string, number>)['st-2'] = 500 + k + n / 1000;
         const t0 = performance.now();
-        const res = await fetch(`${base}/api/hulls/${w.hullId}/plan/revisions`, { method: 'POST', headers: { 'content-type': 'application/json', origin: ORIGIN, cookie }, body: JSON.stringify({ baseRevisionId: w.base, plan: p }) });
+        const res = await fetch(`${base}/api/hulls/${w.hullId}/plan/revisions`, { method: 'POST', headers: { 'content-type': 'application/json', origin, cookie }, body: JSON.stringify({ baseRevisionId: w.base, plan: p }) });
         const body = await res.json();
         latencies.push(performance.now() - t0);
         if (res.status === 201) w.base = body.revision.id;
@@ -96,8 +67,7 @@ async function main() {
       '',
     ].join('\n'),
   );
-  server.close();
-  await sequelize.close();
+  stop();
 }
 
 await main();
