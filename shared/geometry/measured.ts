@@ -79,8 +79,15 @@ export function measuredFramePoints(m: Measurement): MeasuredPoint[] {
 }
 
 /**
+ * How far past the move a corner point may go along its bisector, as a multiple of the move: 4 keeps
+ * corners down to about 29 degrees mitred exactly (1 / cos(75.5 deg) = 4) and clips sharper ones.
+ */
+const MITRE_LIMIT = 4;
+
+/**
  * The edge at depth `depthMm` from the measured face: each point moved along the edge's outward normal
- * (the bisector of the two neighbouring edges' normals; at the ends, the end edge's) by depth*tan(bevel),
+ * (the bisector of the two neighbouring edges' normals, mitred so both edges move by the same amount; at
+ * the ends, the end edge's) by depth*tan(bevel),
  * outward for a standing bevel, inward for an under one. `edge` runs counter-clockwise (port to
  * starboard round the bottom); the closing line across the top is not an edge and gives no normal.
  */
@@ -100,7 +107,15 @@ export function measuredEdgeAtDepth(edge: readonly MeasuredPoint[], depthMm: num
     const sz = before.z + after.z;
     const len = Math.hypot(sy, sz);
     const move = depthMm * Math.tan(p.bevelRad ?? 0);
-    return len === 0 ? { y: p.y, z: p.z } : { y: p.y + (sy / len) * move, z: p.z + (sz / len) * move };
+    if (len < 1e-12) return { y: p.y, z: p.z };
+    // Between two edges the point goes along the bisector by move / cos(half the turn), so both edges
+    // beside it move by `move` and stay parallel to themselves (a mitred corner). The sum of the two unit
+    // normals is 2 cos(half the turn) long; at an end there is one normal and no turn. A needle-sharp
+    // corner would send the point far away: the mitre is limited to MITRE_LIMIT times the move.
+    const normals = (i > 0 ? 1 : 0) + (i < n - 1 ? 1 : 0);
+    const cosHalfTurn = Math.max(len / normals, 1 / MITRE_LIMIT);
+    const along = move / cosHalfTurn;
+    return { y: p.y + (sy / len) * along, z: p.z + (sz / len) * along };
   });
 }
 

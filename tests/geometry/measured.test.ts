@@ -156,6 +156,32 @@ describe('measuredFrameOutline: bevels and layers', () => {
     expect(st.layers.every((l) => l.cutTo === 'far')).toBe(true);
   });
 
+  it('mitres a corner so both edges beside it move by depth * tan(b) and stay parallel (analytic)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 20, max: 140, noNaN: true }), fc.double({ min: 1, max: 40, noNaN: true }), (turnDeg, bDeg) => {
+        // A bottom edge run to starboard, then turning up by `turnDeg` at (0, 0); outward is to the right.
+        // Up to 140 degrees: beyond about 151 the mitre limit clips the corner (next test).
+        const t = degToRad(turnDeg);
+        const bevelRad = degToRad(bDeg);
+        const edge = [{ y: -300, z: 0 }, { y: 0, z: 0 }, { y: 300 * Math.cos(t), z: 300 * Math.sin(t) }].map((p) => ({ ...p, bevelRad }));
+        const move = 18 * Math.tan(bevelRad);
+        const corner = measuredEdgeAtDepth(edge, 18)[1]!;
+        // analytic: the moved corner is `move` from both edge lines (the bottom z = 0 and the turned side)
+        expectClose(-corner.z, move, 1e-9);
+        const distanceFromSide = corner.y * Math.sin(t) - corner.z * Math.cos(t);
+        expectClose(distanceFromSide, move, 1e-9);
+      }),
+    );
+  });
+
+  it('clips the mitre of a needle-sharp corner at four times the move', () => {
+    // analytic: a 170-degree turn would put the mitred point 1/cos(85 deg) = 11.5 moves away
+    const t = degToRad(170);
+    const edge = [{ y: -300, z: 0 }, { y: 0, z: 0 }, { y: 300 * Math.cos(t), z: 300 * Math.sin(t) }].map((p) => ({ ...p, bevelRad: degToRad(20) }));
+    const corner = measuredEdgeAtDepth(edge, 18)[1]!;
+    expectClose(Math.hypot(corner.y, corner.z), 4 * 18 * Math.tan(degToRad(20)), 1e-9);
+  });
+
   it('moves a straight edge parallel to itself by depth * tan(b) for any bevel (analytic)', () => {
     fc.assert(
       fc.property(fc.double({ min: -40, max: 40, noNaN: true }), fc.double({ min: 0, max: 50, noNaN: true }), (bDeg, depth) => {
