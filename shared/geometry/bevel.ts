@@ -121,15 +121,21 @@ export function bevelMarkOf(p: EdgePoint, frame: FrameSiding, squareTolerance: n
 }
 
 /**
- * Bevel marks along one edge (points in order of girth, e.g. a deduction's `hull` or `deck`): at girth
- * 0, every `spacingMm` after, the last point, and both sides of every corner. Between points the edge is
+ * Bevel marks along one edge (points in order of girth, e.g. a deduction's `hull` or `deck`): at every
+ * whole multiple of `spacingMm` of girth (0 included), the first and last points, and both sides of
+ * every corner. Between points the edge is
  * interpolated linearly (the points are within the chord tolerance of the curve).
  */
 export function bevelAlong(points: readonly EdgePoint[], frame: FrameSiding, spacingMm: number = BEVEL_MARK_SPACING_MM): BevelMark[] {
   const out: BevelMark[] = [];
   if (points.length === 0) return out;
   const step = spacingMm > 0 ? spacingMm : BEVEL_MARK_SPACING_MM;
-  let next = points[0]!.girthMm;
+  const first = points[0]!;
+  // The marks fall on whole multiples of the spacing from girth 0, so the marks of an edge that starts
+  // part-way round (a deck edge, a floor's top) line up with the table; the edge's first point is marked
+  // too, as its last is. The 1e-9 keeps a start at a multiple, reached by rounding, on that multiple.
+  let next = Math.ceil(first.girthMm / step - 1e-9) * step;
+  if (!first.corner && first.girthMm < next - 1e-9) out.push(bevelMarkOf(first, frame));
   for (let i = 0; i < points.length; i++) {
     const p = points[i]!;
     const q = points[i + 1];

@@ -120,6 +120,16 @@ describe('bevelSummaryOf: a frame that mixes under and standing', () => {
 });
 
 describe('bevelAlong: corners and square edges', () => {
+  it('puts the marks of an edge that starts part-way round on whole multiples of the spacing', () => {
+    // Analytic: a straight edge from girth 30 to 260 mm with marks every 50 mm: its ends, and 50 ... 250.
+    const edge: EdgePoint[] = [30, 100, 180, 260].map((g) => ({ ...point(0), y: g, girthMm: g }));
+    const marks = bevelAlong(edge, { markedFace: 'aft', sidingMm: 18, xDirection: 'aft' }, 50);
+    expect(marks.map((m) => m.girthMm)).toEqual([30, 50, 100, 150, 200, 250, 260]);
+    // and one from girth 0 starts on 0 with no extra mark
+    const fromZero = bevelAlong(edge.map((p) => ({ ...p, girthMm: p.girthMm - 30 })), { markedFace: 'aft', sidingMm: 18, xDirection: 'aft' }, 50);
+    expect(fromZero.map((m) => m.girthMm)).toEqual([0, 50, 100, 150, 200, 230]);
+  });
+
   it('marks both sides of a chine and calls a prismatic hull square', () => {
     // Analytic: a prismatic box (no change along x): every bevel is square; the chine is marked on both sides.
     const hull = hullBuild(chineHull({ xs: evenStations(0, 3000, 5), chineY: () => 600, flare: 0, sheerZ: 500, bottomMm: 12, sideMm: 9 }));
