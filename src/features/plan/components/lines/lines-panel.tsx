@@ -1,12 +1,11 @@
 import { memo, useState } from 'react';
-import { ArrowDown, ArrowUp, Pencil, Trash2 } from 'lucide-react';
 import type { Line } from '../../../../../shared/geometry/hull-schema';
 import type { Notation } from '../../../../../shared/geometry/notation-schema';
-import { Button } from '../../../../components/ui/button';
 import { ConfirmInline } from '../../../../components/ui/confirm-inline';
 import { lineAdd, lineDelete, lineReorder, lineUpdate, panelsBoundedBy } from '../../editor/line-actions';
 import { edit } from '../../editor/types';
 import { useEditor, usePlanEditor } from '../../hooks/use-plan-editor';
+import { ItemControls } from './item-controls';
 import { pointRoleWords, rowHeaderDetail } from './grid-rows';
 import { LineForm, lineFormValues } from './line-form';
 
@@ -21,22 +20,15 @@ const LineItem = memo(function LineItem({ line, index, count, notation }: { line
         <span className="min-w-16 font-semibold">{line.name}</span>
         <span className="text-muted">{line.kind === 'point' ? `${pointRoleWords[line.role]} · height and half-breadth` : rowHeaderDetail(line, 'value', notation)}</span>
         {line.knuckle && <span className="rounded border border-edge px-2 text-sm">knuckle</span>}
-        <div className="ml-auto flex flex-wrap gap-2 [&>button]:px-3">
-          <Button variant="secondary" aria-label={`Move ${line.name} up`} disabled={index === 0} onClick={() => apply(edit(`Move ${line.name} up`, lineReorder, { lineId: line.id, toIndex: index - 1 }))}>
-            <ArrowUp aria-hidden="true" className="size-5" />
-          </Button>
-          <Button variant="secondary" aria-label={`Move ${line.name} down`} disabled={index === count - 1} onClick={() => apply(edit(`Move ${line.name} down`, lineReorder, { lineId: line.id, toIndex: index + 1 }))}>
-            <ArrowDown aria-hidden="true" className="size-5" />
-          </Button>
-          <Button variant="secondary" aria-label={`Change ${line.name}`} onClick={() => setMode('edit')}>
-            <Pencil aria-hidden="true" className="size-5" />
-            Change
-          </Button>
-          <Button variant="secondary" aria-label={`Delete ${line.name}`} onClick={() => setMode('delete')}>
-            <Trash2 aria-hidden="true" className="size-5" />
-            Delete
-          </Button>
-        </div>
+        <ItemControls
+          name={line.name}
+          index={index}
+          count={count}
+          runs="rows"
+          onMove={(label, toIndex) => apply(edit(label, lineReorder, { lineId: line.id, toIndex }))}
+          onChange={() => setMode('edit')}
+          onDelete={() => setMode('delete')}
+        />
       </div>
       {mode === 'edit' && (
         <LineForm

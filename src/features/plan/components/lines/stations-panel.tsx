@@ -2,7 +2,7 @@ import { memo, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { ArrowLeft, ArrowRight, ArrowUpDown, Pencil, Plus, Trash2 } from 'lucide-react';
+import { ArrowUpDown, Plus } from 'lucide-react';
 import type { Station } from '../../../../../shared/geometry/hull-schema';
 import type { Notation } from '../../../../../shared/geometry/notation-schema';
 import { lengthFormat } from '../../../../../shared/geometry/notation';
@@ -11,6 +11,7 @@ import { ConfirmInline } from '../../../../components/ui/confirm-inline';
 import { InputField } from '../../../../components/ui/field';
 import { stationAdd, stationDelete, stationMove, stationRename, stationReorder, stationsSortByX } from '../../editor/station-actions';
 import { edit } from '../../editor/types';
+import { ItemControls } from './item-controls';
 import { lengthInputMode, lengthText } from '../../length-field';
 import { useEditor, usePlanEditor } from '../../hooks/use-plan-editor';
 
@@ -63,22 +64,15 @@ const StationItem = memo(function StationItem({ station, index, count, notation 
       <div className="flex flex-wrap items-center gap-3">
         <span className="min-w-16 font-semibold">{station.name}</span>
         <span className="min-w-20 font-mono text-muted">x {lengthFormat(station.x, notation)}</span>
-        <div className="ml-auto flex flex-wrap gap-2 [&>button]:px-3">
-          <Button variant="secondary" aria-label={`Move ${station.name} left`} disabled={index === 0} onClick={() => apply(edit(`Move ${station.name} left`, stationReorder, { stationId: station.id, toIndex: index - 1 }))}>
-            <ArrowLeft aria-hidden="true" className="size-5" />
-          </Button>
-          <Button variant="secondary" aria-label={`Move ${station.name} right`} disabled={index === count - 1} onClick={() => apply(edit(`Move ${station.name} right`, stationReorder, { stationId: station.id, toIndex: index + 1 }))}>
-            <ArrowRight aria-hidden="true" className="size-5" />
-          </Button>
-          <Button variant="secondary" aria-label={`Change ${station.name}`} onClick={() => setMode('edit')}>
-            <Pencil aria-hidden="true" className="size-5" />
-            Change
-          </Button>
-          <Button variant="secondary" aria-label={`Delete ${station.name}`} onClick={() => setMode('delete')}>
-            <Trash2 aria-hidden="true" className="size-5" />
-            Delete
-          </Button>
-        </div>
+        <ItemControls
+          name={station.name}
+          index={index}
+          count={count}
+          runs="columns"
+          onMove={(label, toIndex) => apply(edit(label, stationReorder, { stationId: station.id, toIndex }))}
+          onChange={() => setMode('edit')}
+          onDelete={() => setMode('delete')}
+        />
       </div>
       {mode === 'edit' && (
         <StationForm
