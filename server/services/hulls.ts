@@ -1,10 +1,11 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import { type Transaction } from 'sequelize';
 import type { CreateHullInput, HullSummary, HullUnits, Role } from '../../shared/api/hulls';
 import { createHullSchema } from '../../shared/api/hulls';
 import { notFound } from '../errors';
 import type { Plan } from '../../shared/geometry/plan-schema';
 import { planResponseJson, revisionSave } from './plans';
 import { Hull, HullMember } from '../models';
+import { selectRows } from '../db';
 
 function toSummary(hull: Hull, role: Role): HullSummary {
   return {
@@ -54,9 +55,10 @@ export interface HullMembership {
  * 404, not 403). The hot read path of the plan needs nothing else from the database.
  */
 export async function hullMembershipOf(hullId: number, userId: number): Promise<HullMembership | null> {
-  const rows = await Hull.sequelize!.query<{ role: Role; units: HullUnits; latest_revision_id: number | null }>(
+  const rows = await selectRows<{ role: Role; units: HullUnits; latest_revision_id: number | null }>(
+    Hull.sequelize!,
     'SELECT m.role, h.units, h.latest_revision_id FROM hull_members m JOIN hulls h ON h.id = m.hull_id WHERE m.hull_id = ? AND m.user_id = ?',
-    { replacements: [hullId, userId], type: QueryTypes.SELECT },
+    [hullId, userId],
   );
   const row = rows[0];
   return row ? { role: row.role, units: row.units, latestRevisionId: row.latest_revision_id } : null;
