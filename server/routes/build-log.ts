@@ -4,7 +4,8 @@ import { buildEventSchema, buildSettingsSchema, photoFieldsSchema, PHOTO_MAX_BYT
 import type { Config } from '../config';
 import { AppError, notFound, parseInput } from '../errors';
 import { accessOf, hullAccess } from '../http/hull-access';
-import { buildBoard, buildEventAdd, buildPart, buildPhotoBytes, buildPhotosAdd, buildSettingsPut } from '../services/build-log';
+import { buildBoard, buildEventAdd, buildPart, buildSettingsPut } from '../services/build-log';
+import { buildPhotoBytes, buildPhotoDelete, buildPhotosAdd } from '../services/build-log-photos';
 import { defaultPhotoStorage, type PhotoStorage } from '../services/photo-storage';
 
 // Memory storage: a refused upload never touches the disk, and the bytes are sniffed before anything is kept.
@@ -24,7 +25,9 @@ export function registerBuildLogRoutes(router: Router, config: Config, storage: 
     res.status(201).json({ event: await buildEventAdd(accessOf(res), req.user!.id, input) });
   });
 
-  router.put('/api/hulls/:hullId/build-log/settings', hullAccess('build-log'), async (req, res) => {
+  // The tolerance decides which cut parts must be checked again: a decision about the parts, so it is for
+  // those who may change them (owner, builders), not for everyone who keeps the log.
+  router.put('/api/hulls/:hullId/build-log/settings', hullAccess('edit-parts'), async (req, res) => {
     const { moveToleranceMm } = parseInput(buildSettingsSchema, req.body);
     res.json(await buildSettingsPut(accessOf(res).hullId, moveToleranceMm));
   });
@@ -50,9 +53,19 @@ export function registerBuildLogRoutes(router: Router, config: Config, storage: 
   });
 
   router.get('/api/hulls/:hullId/build-log/photos/:photoId', hullAccess('read'), async (req, res) => {
-    const photoId = Number(req.params.photoId);
-    if (!Number.isSafeInteger(photoId) || photoId <= 0) throw notFound('No such photo');
+    const photoId = photoIdOf(req.params.photoId);
     const bytes = await buildPhotoBytes(accessOf(res), storage, photoId, req.query.size === 'thumb' ? 'thumb' : 'full');
     res.set('Cache-Control', 'private, max-age=86400').type('image/jpeg').send(bytes);
   });
+
+  router.delete('/api/hulls/:hullId/build-log/photos/:photoId', hullAccess('build-log'), async (req, res) => {
+    await buildPhotoDelete(accessOf(res), req.user!.id, storage, photoIdOf(req.params.photoId), req.log);
+    res.status(204).end();
+  });
+}
+
+function photoIdOf(param: unknown): number {
+  const photoId = Number(param);
+  if (!Number.isSafeInteger(photoId) || photoId <= 0) throw notFound('No such photo');
+  return photoId;
 }

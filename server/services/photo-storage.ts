@@ -1,4 +1,4 @@
-import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
@@ -10,6 +10,8 @@ export interface PhotoStorage {
   get(key: string): Promise<Buffer | null>;
   /** Removing a key that is not there is not an error (a refused upload cleans up what it may have written). */
   delete(key: string): Promise<void>;
+  /** Every stored key with when it was last written (the orphan sweep leaves young files alone). */
+  list(): Promise<{ key: string; modifiedAt: Date }[]>;
 }
 
 // Keys are made by the server, but a strict shape keeps any path trick out of the folder store.
@@ -40,6 +42,26 @@ export function folderPhotoStorage(folder: string): PhotoStorage {
     },
     async delete(key) {
       await rm(file(key), { force: true });
+    },
+    async list() {
+      let names: string[];
+      try {
+        names = await readdir(folder);
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === 'ENOENT') return [];
+        throw err;
+      }
+      const out: { key: string; modifiedAt: Date }[] = [];
+      // Half-written temporary files (".tmp-…") are not keys; anything else of a foreign shape is left alone too.
+      for (const name of names.filter((n) => KEY_SHAPE.test(n) && !n.includes('..'))) {
+        try {
+          out.push({ key: name, modifiedAt: (await stat(path.join(folder, name))).mtime });
+        } catch (err) {
+          // Deleted between the listing and the stat: nothing to report.
+          if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw err;
+        }
+      }
+      return out;
     },
   };
 }

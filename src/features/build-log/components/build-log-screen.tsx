@@ -6,9 +6,10 @@ import { describeError } from '../../../lib/api-client';
 import { useBuildBoard } from '../api/get-build-board';
 import { BuildBoard } from './build-board';
 import { PartPanel } from './part-panel';
+import { ToleranceForm } from './tolerance-form';
 
 /** The Build log tab: the board of the hull beside the chosen part. The designer sees it without the buttons. */
-export function BuildLogScreen({ hullId, role }: { hullId: number; role: Role }) {
+export function BuildLogScreen({ hullId, role, userId }: { hullId: number; role: Role; userId: number | null }) {
   const board = useBuildBoard(hullId);
   const [params, setParams] = useSearchParams();
   const selected = params.get('part');
@@ -23,7 +24,9 @@ export function BuildLogScreen({ hullId, role }: { hullId: number; role: Role })
       ) : (
         <BuildBoard board={board.data} selected={selected} onSelect={(partId) => setParams({ part: partId }, { replace: true })} />
       )}
-      {selected && <PartPanel key={selected} hullId={hullId} partId={selected} canKeep={canKeep} />}
+      {selected && <PartPanel key={selected} hullId={hullId} partId={selected} role={role} userId={userId} />}
+      {/* Who may set it is the server's rule: those who may change the parts. */}
+      {(role === 'owner' || role === 'builder') && <ToleranceForm hullId={hullId} toleranceMm={board.data.moveToleranceMm} notation={board.data.notation} />}
     </div>
   );
 }

@@ -1,12 +1,13 @@
-import { buildStages } from '../../../../shared/api/build-log';
+import { Link } from 'react-router-dom';
+import { buildStages, layerStages } from '../../../../shared/api/build-log';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { Loading } from '../../../components/ui/loading';
 import { describeError } from '../../../lib/api-client';
 import { formatWhen } from '../../../lib/labels';
 import { useBuildPart } from '../api/get-build-part';
 import { photoUrl } from '../api/upload-build-photos';
-import { epoxyCaution, sawCaution, stageLabels } from './build-words';
+import { epoxyCaution, flagWhere, layerLabel, sawCaution, stageLabels } from './build-words';
 
 /** A part's build sheet for the bench wall: bevel table, stages, notes and photo thumbnails. Prints on plain paper. */
 export function BuildSheet({ hullId, partId }: { hullId: number; partId: string }) {
@@ -21,12 +22,30 @@ export function BuildSheet({ hullId, partId }: { hullId: number; partId: string 
       <style>{'@media print { header, nav, footer, [aria-label="Parts of this hull"] { display: none !important; } .build-sheet { font-size: 11pt; } }'}</style>
       <div className="flex items-baseline justify-between gap-2">
         <h2 className="text-2xl font-bold">Build sheet: {state.name}</h2>
-        <Button variant="secondary" className="print:hidden" onClick={() => window.print()}>
-          Print
-        </Button>
+        <span className="flex flex-wrap gap-3 print:hidden">
+          <Link to={`/hulls/${hullId}/build-log?part=${encodeURIComponent(partId)}`} className={buttonClasses('quiet')}>
+            Back to the build log
+          </Link>
+          <Button variant="secondary" onClick={() => window.print()}>
+            Print
+          </Button>
+        </span>
       </div>
       <p>{buildStages.map((s) => `${state.done.includes(s) ? '☑' : '☐'} ${stageLabels[s]}`).join('   ')}</p>
-      {state.flag && <p className="font-semibold">Moved {state.flag.movedMm} mm since it was cut (revision {state.flag.cutRevisionId}); check against the latest pattern.</p>}
+      {state.layers.length > 0 && (
+        <ul aria-label="Layers">
+          {state.layers.map((l) => (
+            <li key={l.index}>
+              {layerLabel(l)}: {layerStages.map((s) => `${l.done.includes(s) ? '☑' : '☐'} ${stageLabels[s]}`).join('   ')}
+            </li>
+          ))}
+        </ul>
+      )}
+      {state.flag && (
+        <p className="font-semibold">
+          Moved {state.flag.movedMm} mm since it was cut{flagWhere(state.flag)} (revision {state.flag.cutRevisionId}); check against the latest pattern.
+        </p>
+      )}
       <table className="w-full border-collapse text-left">
         <caption className="text-left font-semibold">Bevels along the edges</caption>
         <thead>
@@ -60,7 +79,8 @@ export function BuildSheet({ hullId, partId }: { hullId: number; partId: string 
           <ul>
             {notes.map((e) => (
               <li key={e.id}>
-                {stageLabels[e.stage]} ({e.author.displayName}, {formatWhen(e.createdAt)}): {e.note}
+                {stageLabels[e.stage]}
+                {e.layerIndex !== null ? `, layer ${e.layerIndex + 1}` : ''} ({e.author.displayName}, {formatWhen(e.createdAt)}): {e.note}
               </li>
             ))}
           </ul>

@@ -1,6 +1,7 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { buildStages, epoxyStages, sawStages, type BuildStage } from '../../../../shared/api/build-log';
+import { buildStages, epoxyStages, layerStages, sawStages, type BuildPhoto, type BuildStage } from '../../../../shared/api/build-log';
+import type { Role } from '../../../../shared/api/hulls';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Loading } from '../../../components/ui/loading';
@@ -8,31 +9,49 @@ import { describeError } from '../../../lib/api-client';
 import { formatWhen } from '../../../lib/labels';
 import { useAddBuildEvent } from '../api/add-build-event';
 import { useBuildPart } from '../api/get-build-part';
-import { photoUrl, useUploadBuildPhotos } from '../api/upload-build-photos';
-import { epoxyCaution, sawCaution, stageLabels } from './build-words';
+import { useUploadBuildPhotos } from '../api/upload-build-photos';
+import { epoxyCaution, flagWhere, sawCaution, stageLabels } from './build-words';
+import { LayerMarks } from './layer-marks';
+import { PhotoStrip } from './photo-strip';
 
 const input = 'min-h-12 rounded-lg border-2 border-edge bg-surface px-3 text-lg';
 
-/** One part at the bench: a big button for the next stage, a note, material used, photos, and the history. */
-export function PartPanel({ hullId, partId, canKeep }: { hullId: number; partId: string; canKeep: boolean }) {
+/**
+ * One part at the bench: a big button for the next stage (on a laminated part, one per layer until every
+ * layer is cut), a note, material used, photos, and the history.
+ */
+export function PartPanel({ hullId, partId, role, userId }: { hullId: number; partId: string; role: Role; userId: number | null }) {
   const part = useBuildPart(hullId, partId);
   const addEvent = useAddBuildEvent(hullId);
   const upload = useUploadBuildPhotos(hullId);
   const [note, setNote] = useState('');
   const [used, setUsed] = useState({ plySheets: '', epoxyMl: '', fillerMl: '', tapeM: '' });
   const [error, setError] = useState<string | null>(null);
+  const panel = useRef<HTMLElement>(null);
+  const loaded = part.isSuccess;
+  // The panel opens below the whole board; on a tablet that is off the screen, so bring it into view once.
+  useEffect(() => {
+    if (loaded) panel.current?.scrollIntoView?.({ block: 'start', behavior: 'smooth' });
+  }, [loaded]);
 
   if (part.isPending) return <Loading label="Loading the part…" />;
   if (part.isError) return <Alert tone="error">{describeError(part.error)}</Alert>;
   const { state, events, photos } = part.data;
-  const next = state.next;
-  const lastDone = [...buildStages].reverse().find((s) => state.done.includes(s)) ?? null;
+  const canKeep = role !== 'designer';
+  const laminated = state.layers.length > 0;
+  // On a laminated part the layer stages are marked in the layer rows; the big buttons are the part's own.
+  const ownStage = (s: BuildStage) => !laminated || !layerStages.includes(s);
+  const next = state.next !== null && ownStage(state.next) ? state.next : null;
+  const lastDone = [...buildStages].reverse().find((s) => state.done.includes(s) && ownStage(s)) ?? null;
+  const lastAny = [...buildStages].reverse().find((s) => state.done.includes(s) || state.layers.some((l) => l.done.includes(s))) ?? null;
+  const upcoming = [next, ...state.layers.map((l) => l.next)].filter((s): s is BuildStage => s !== null);
+  const mayDelete = (photo: BuildPhoto) => role === 'owner' || role === 'builder' || (role === 'helper' && photo.uploader.id === userId);
 
-  const send = async (stage: BuildStage, action: 'done' | 'reopened') => {
+  const send = async (stage: BuildStage, action: 'done' | 'reopened', layerIndex: number | null = null) => {
     setError(null);
     const amounts = Object.fromEntries(Object.entries(used).filter(([, v]) => v.trim() !== '').map(([k, v]) => [k, Number(v)]));
     try {
-      await addEvent.mutateAsync({ partId, stage, action, note, used: amounts });
+      await addEvent.mutateAsync({ partId, layerIndex, stage, action, note, used: amounts });
       setNote('');
       setUsed({ plySheets: '', epoxyMl: '', fillerMl: '', tapeM: '' });
     } catch (err) {
@@ -44,14 +63,17 @@ export function PartPanel({ hullId, partId, canKeep }: { hullId: number; partId:
     if (!files || files.length === 0) return;
     setError(null);
     try {
-      await upload.mutateAsync({ partId, stage: lastDone, files: [...files] });
+      await upload.mutateAsync({ partId, stage: lastAny, files: [...files] });
     } catch (err) {
       setError(describeError(err));
     }
   };
 
+  // Below the note and the material fields when marking, so what was typed goes with the layer's mark.
+  const layerMarks = laminated ? <LayerMarks layers={state.layers} busy={addEvent.isPending} canKeep={canKeep} onMark={(layerIndex, stage, action) => void send(stage, action, layerIndex)} /> : null;
+
   return (
-    <section aria-labelledby="part-panel-heading" className="flex flex-col gap-4 rounded-xl border-2 border-rule bg-surface p-4">
+    <section ref={panel} aria-labelledby="part-panel-heading" className="flex flex-col gap-4 rounded-xl border-2 border-rule bg-surface p-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 id="part-panel-heading" className="text-xl font-bold">
           {state.name}
@@ -61,12 +83,13 @@ export function PartPanel({ hullId, partId, canKeep }: { hullId: number; partId:
         </Link>
       </div>
       {state.flag && (
-        <Alert tone="caution" title={`Moved ${state.flag.movedMm} mm since it was cut`}>
+        <Alert tone="caution" title={`Moved ${state.flag.movedMm} mm since it was cut${flagWhere(state.flag)}`}>
           It was cut from revision {state.flag.cutRevisionId}; the latest revision moves its outline. Check it against the new pattern.
         </Alert>
       )}
-      {next && epoxyStages.includes(next) && <Alert tone="caution">{epoxyCaution}</Alert>}
-      {next && sawStages.includes(next) && <Alert tone="caution">{sawCaution}</Alert>}
+      {upcoming.some((s) => epoxyStages.includes(s)) && <Alert tone="caution">{epoxyCaution}</Alert>}
+      {upcoming.some((s) => sawStages.includes(s)) && <Alert tone="caution">{sawCaution}</Alert>}
+      {!canKeep && layerMarks}
       {canKeep && (
         <div className="flex flex-col gap-3">
           <label className="flex flex-col gap-1">
@@ -89,6 +112,7 @@ export function PartPanel({ hullId, partId, canKeep }: { hullId: number; partId:
               </label>
             ))}
           </fieldset>
+          {layerMarks}
           <div className="flex flex-wrap gap-3">
             {next && (
               <Button className="min-h-16 px-8 text-xl" busy={addEvent.isPending} onClick={() => void send(next, 'done')}>
@@ -108,17 +132,7 @@ export function PartPanel({ hullId, partId, canKeep }: { hullId: number; partId:
           {error && <Alert tone="error">{error}</Alert>}
         </div>
       )}
-      {photos.length > 0 && (
-        <ul aria-label="Photos" className="flex flex-wrap gap-2">
-          {photos.map((p) => (
-            <li key={p.id}>
-              <a href={photoUrl(hullId, p.id, 'full')} target="_blank" rel="noreferrer">
-                <img src={photoUrl(hullId, p.id, 'thumb')} width={p.thumbWidth} height={p.thumbHeight} alt={`${state.name}${p.stage ? `, ${stageLabels[p.stage].toLowerCase()}` : ''}, by ${p.uploader.displayName}`} className="h-32 w-auto rounded border border-rule" />
-              </a>
-            </li>
-          ))}
-        </ul>
-      )}
+      <PhotoStrip hullId={hullId} partName={state.name} photos={photos} mayDelete={canKeep ? mayDelete : () => false} />
       <div>
         <h4 className="font-semibold">History</h4>
         {events.length === 0 ? (
