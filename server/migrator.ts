@@ -5,6 +5,7 @@ import * as m0002 from './migrations/0002-sessions';
 import * as m0003 from './migrations/0003-plan-revisions';
 import * as m0004 from './migrations/0004-collaboration';
 import * as m0005 from './migrations/0005-build-log';
+import * as m0006 from './migrations/0006-cut-list-arrangements';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -16,6 +17,7 @@ const migrations = [
   { name: '0003-plan-revisions', ...m0003 },
   { name: '0004-collaboration', ...m0004 },
   { name: '0005-build-log', ...m0005 },
+  { name: '0006-cut-list-arrangements', ...m0006 },
 ];
 
 /** The umzug migrator over this database; applied migrations are recorded in the `migrations_applied` table. */

@@ -1,6 +1,7 @@
 import Papa from 'papaparse';
 import type { CutListPiece, DrawingUnits } from '../../shared/geometry/drawing';
-import { type Nesting, type NestedPlacement, type NestingPiece, nestingOnSheets, nestingPlacedShape } from '../../shared/geometry/nesting';
+import { type Nesting, type NestedPlacement, type NestedSheet, type NestingPiece, nestingOnSheets, nestingPlacedShape } from '../../shared/geometry/nesting';
+import { type SheetLayout, sheetPieceSize } from '../../shared/geometry/sheet-layout';
 import { DEFAULT_SHEET, type Sheet } from '../../shared/geometry/part-schema';
 import type { SectionPoint } from '../../shared/geometry/types';
 import { CAUTION_SAWS, CAUTION_STRUCTURE } from './cautions';
@@ -31,6 +32,8 @@ export interface CutListOptions {
   kerfMm?: number;
   edgeMarginMm?: number;
   totals: CutListTotals;
+  /** The arrangement to print (a hand arrangement, `cutListNestingOfLayout`); without it, the automatic one. */
+  nesting?: CutListNesting;
 }
 
 /** One thickness of ply, nested. Sheet numbers run on across thicknesses from 1. */
@@ -47,6 +50,10 @@ export interface CutListNesting {
   sheetOf: Map<string, number>;
   /** Where each piece went, by `pieceId`. */
   placementOf: Map<string, NestedPlacement>;
+  /** True when the builder arranged the pieces on the sheet view; false: the packer did. */
+  byHand: boolean;
+  /** Said on the cut list: why the automatic arrangement is used though one was saved by hand. */
+  note: string | null;
 }
 
 /** A piece's id in the nesting: part, layer and piece number (unique in a cut list). */
@@ -75,7 +82,38 @@ export function cutListNesting(pieces: readonly CutListPiece[], options: Pick<Cu
     groups.push({ plyThicknessMm: t, nesting, firstSheetNo: next });
     next += nesting.sheets.length;
   }
-  return { groups, sheetOf, placementOf };
+  return { groups, sheetOf, placementOf, byHand: false, note: null };
+}
+
+/**
+ * The nesting of an arrangement made by hand (already checked with `sheetLayoutIssues` and tidied by
+ * `sheetLayoutTidied`: sheets numbered from 1, thinnest ply first, none empty), in the shape the writers print.
+ */
+export function cutListNestingOfLayout(pieces: readonly CutListPiece[], layout: SheetLayout): CutListNesting {
+  const byId = new Map(pieces.map((p) => [pieceId(p), p]));
+  const sheetOf = new Map<string, number>();
+  const placementOf = new Map<string, NestedPlacement>();
+  const sheetArea = layout.sheet.widthMm * layout.sheet.lengthMm;
+  const groups: CutListGroup[] = [];
+  const sheets = [...layout.sheets].sort((a, b) => a.sheetNo - b.sheetNo);
+  for (const t of [...new Set(sheets.map((s) => s.plyThicknessMm))].sort((a, b) => a - b)) {
+    const mine = sheets.filter((s) => s.plyThicknessMm === t);
+    const nestedSheets: NestedSheet[] = mine.map((s, index) => {
+      const placements = layout.placements.filter((pl) => pl.sheetNo === s.sheetNo).map((pl): NestedPlacement => {
+        const size = sheetPieceSize(byId.get(pl.pieceId) ?? { widthMm: 0, heightMm: 0 }, pl.rotated);
+        const placed = { id: pl.pieceId, x: pl.x, y: pl.y, widthMm: size.acrossMm, lengthMm: size.alongMm, rotated: pl.rotated };
+        sheetOf.set(pl.pieceId, s.sheetNo);
+        placementOf.set(pl.pieceId, placed);
+        return placed;
+      });
+      const usedAreaMm2 = placements.reduce((a, pl) => a + (byId.get(pl.id)?.areaMm2 ?? 0), 0);
+      return { index, placements, usedAreaMm2, yield: usedAreaMm2 / sheetArea };
+    });
+    const usedAreaMm2 = nestedSheets.reduce((a, s) => a + s.usedAreaMm2, 0);
+    const nesting: Nesting = { sheet: layout.sheet, kerfMm: layout.kerfMm, sheets: nestedSheets, usedAreaMm2, sheetAreaMm2: nestedSheets.length * sheetArea, yield: nestedSheets.length ? usedAreaMm2 / (nestedSheets.length * sheetArea) : 0 };
+    groups.push({ plyThicknessMm: t, nesting, firstSheetNo: mine[0]!.sheetNo });
+  }
+  return { groups, sheetOf, placementOf, byHand: true, note: null };
 }
 
 const len = (mm: number, units: DrawingUnits): string => (units === 'mm' ? mm.toFixed(0) : (mm / 25.4).toFixed(2));
@@ -87,11 +125,12 @@ export const cutListMassKg = (pieces: readonly CutListPiece[]): number => pieces
 /** The cut list as CSV (UTF-8 with a byte-order mark): one row per piece with its sheet and place on it (totals are in the PDF). */
 export function cutListCsv(pieces: readonly CutListPiece[], nesting: CutListNesting, options: Pick<CutListOptions, 'units'>): Buffer {
   const u = unitWord(options.units);
-  const fields = ['part', 'kind', 'layer', 'piece', 'ply_mm', `width_${u}`, `height_${u}`, 'area_m2', 'mass_kg', 'sheet', `sheet_x_${u}`, `sheet_y_${u}`, 'turned'];
+  const fields = ['part', 'kind', 'layer', 'piece', 'ply_mm', `width_${u}`, `height_${u}`, 'area_m2', 'mass_kg', 'sheet', `sheet_x_${u}`, `sheet_y_${u}`, 'turned', 'arranged'];
+  const arranged = nesting.byHand ? 'by hand' : 'automatically';
   const data = pieces.map((p) => {
     const id = pieceId(p);
     const pl = nesting.placementOf.get(id);
-    return [p.partName, p.partKind, p.layerIndex, p.pieceNo, p.plyThicknessMm, len(p.widthMm, options.units), len(p.heightMm, options.units), (p.areaMm2 / 1e6).toFixed(3), p.massKg.toFixed(2), nesting.sheetOf.get(id) ?? '', pl ? len(pl.x, options.units) : '', pl ? len(pl.y, options.units) : '', pl ? (pl.rotated ? 'yes' : 'no') : ''];
+    return [p.partName, p.partKind, p.layerIndex, p.pieceNo, p.plyThicknessMm, len(p.widthMm, options.units), len(p.heightMm, options.units), (p.areaMm2 / 1e6).toFixed(3), p.massKg.toFixed(2), nesting.sheetOf.get(id) ?? '', pl ? len(pl.x, options.units) : '', pl ? len(pl.y, options.units) : '', pl ? (pl.rotated ? 'yes' : 'no') : '', arranged];
   });
   return csvBuffer(Papa.unparse({ fields, data }, { newline: '\r\n' }));
 }
@@ -101,8 +140,8 @@ const MARGIN = 12;
 
 /** The cut list PDF: the table of pieces, the totals, then one layout page per sheet. */
 export async function cutListPdf(pieces: readonly CutListPiece[], options: CutListOptions): Promise<Buffer> {
-  const nesting = cutListNesting(pieces, options);
-  const sheet = options.sheet ?? DEFAULT_SHEET;
+  const nesting = options.nesting ?? cutListNesting(pieces, options);
+  const sheet = options.nesting?.groups[0]?.nesting.sheet ?? options.sheet ?? DEFAULT_SHEET;
   const doc = pdfDocument({ title: `${options.hullName}: cut list and material`, subject: 'Pieces, plywood sheets and their layout', date: options.date });
   const u = unitWord(options.units);
   const columns: TableColumn[] = [
@@ -142,6 +181,7 @@ export async function cutListPdf(pieces: readonly CutListPiece[], options: CutLi
   lines.push(`Pieces: ${pieces.length}, mass about ${cutListMassKg(pieces).toFixed(1)} kg in all.`);
   lines.push(`Epoxy fillets: about ${(options.totals.filletVolumeMl / 1000).toFixed(2)} litres of thickened epoxy. Glass tape: about ${options.totals.glassTapeM.toFixed(1)} m.`);
   lines.push(`Saw kerf allowed between pieces: ${nesting.groups[0]?.nesting.kerfMm ?? options.kerfMm ?? 3} mm${options.edgeMarginMm ? `; ${options.edgeMarginMm} mm kept clear at the sheet edges` : ''}. Pieces are placed by their bounding boxes; a piece turned on the sheet is marked so on its layout.`);
+  lines.push(nesting.byHand ? 'Arranged by hand on the sheet view, and checked: no two pieces nearer than the kerf, every piece inside its sheet.' : `Arranged automatically by the packer.${nesting.note ? ` ${nesting.note}` : ''}`);
   for (const l of lines) y += paragraph(doc, l, MARGIN, y, A4.widthMm - 2 * MARGIN, { capMm: 2.6 }) + 1.8;
   y += 3;
   for (const c of [CAUTION_SAWS, CAUTION_STRUCTURE]) y += paragraph(doc, c, MARGIN, y, A4.widthMm - 2 * MARGIN, { capMm: 2.1 }) + 1.5;

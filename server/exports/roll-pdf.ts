@@ -18,8 +18,8 @@ import { type PdfProgress, registrationMarks } from './tiled-pdf';
 
 /** Longest page (mm) without UserUnit: 14,400 / 72 in (ISO 32000-1, 8.3.2). */
 export const PDF_MAX_PAGE_MM = (14400 / 72) * 25.4;
-/** Roll widths offered (mm): 610, 914 and 1067 (24, 36 and 42 in; common practice). */
-export const ROLL_WIDTHS_MM: readonly number[] = [610, 914, 1067];
+/** Roll widths offered (mm), shared with the Print shop. */
+export { ROLL_WIDTHS_MM } from '../../shared/api/exports';
 /** Height (mm) of the title band at the top of each roll page. */
 export const ROLL_BAND_MM = 118;
 

@@ -1,8 +1,8 @@
 import type { Readable } from 'node:stream';
-import { type TemplateDrawing, drawingAsSeen, drawingBounds, drawingIssues, lengthLabel } from '../../shared/geometry/drawing';
+import { type TemplateDrawing, lengthLabel } from '../../shared/geometry/drawing';
 import type { Bounds } from '../../shared/geometry/polygon';
-import { type Tile, type TileGrid, type TilingOptions, tileGrid, tilesWithContent } from '../../shared/geometry/tiling';
-import { GeometryInputError, type SectionPoint } from '../../shared/geometry/types';
+import { type Tile, type TileGrid, type TiledPrintPlan, type TilingOptions, tiledPrintPlan } from '../../shared/geometry/tiling';
+import type { SectionPoint } from '../../shared/geometry/types';
 import { CAUTIONS } from './cautions';
 import { type Doc, dashMm, paragraph, paragraphHeightMm, pdfCollect, pdfDocument, pdfPage, pt, textAt } from './pdf-common';
 import { LINE_STYLES, type PreparedDrawing, drawDrawing, drawingPrepared, type PageWindow } from './pdf-drawing';
@@ -19,39 +19,14 @@ import { clearSpot, drawInfoBox, drawNeighbourLabels, drawRegistrationMark, draw
 /** Called after each page is written: pages written so far, pages in all. */
 export type PdfProgress = (done: number, total: number) => void;
 
-/** What the tiled PDF will hold: the drawing as printed, the grid and the tiles printed. */
-export interface TiledPdfPlan {
-  seen: TemplateDrawing;
-  grid: TileGrid;
-  printed: Tile[];
-  /** Pages before the first sheet (the assembly map). */
-  introPages: number;
-}
-
-/** Pages before the sheets: the assembly map and instructions. */
-export const TILED_INTRO_PAGES = 1;
-
-/** Smallest printable area (mm) that still holds the check square with room round it. */
-const MIN_PRINTABLE_MM = 112;
+/** What the tiled PDF will hold (the shared plan: the Print shop preview computes the same). */
+export type TiledPdfPlan = TiledPrintPlan;
 
 /**
- * The plan of a tiled PDF without writing it (the Print shop preview shows the same from
- * `shared/geometry/tiling.ts`).
- * @throws GeometryInputError when the drawing has issues (`drawingIssues`), has no lines, or the paper
- *   cannot hold the check square.
+ * The plan of a tiled PDF without writing it: `tiledPrintPlan`, which the Print shop preview also runs.
+ * @throws GeometryInputError as `tiledPrintPlan`.
  */
-export function tiledPdfPlan(drawing: TemplateDrawing, options: TilingOptions): TiledPdfPlan {
-  const issues = drawingIssues(drawing);
-  if (issues.length) throw new GeometryInputError(issues);
-  const seen = drawingAsSeen(drawing);
-  const extents = drawingBounds(seen);
-  if (!extents) throw new GeometryInputError([{ code: 'drawing-empty', message: `${drawing.title.partName}: the drawing has no lines to print`, field: 'paths' }]);
-  const grid = tileGrid(extents, options);
-  if (Math.min(grid.printableWidthMm, grid.printableHeightMm) < MIN_PRINTABLE_MM) {
-    throw new GeometryInputError([{ code: 'tiling-paper-small', message: `the printable area (${grid.printableWidthMm.toFixed(1)} x ${grid.printableHeightMm.toFixed(1)} mm) must be at least ${MIN_PRINTABLE_MM} mm each way to hold the 100 mm check square`, field: 'paper' }]);
-  }
-  return { seen, grid, printed: tilesWithContent(grid, seen, options.leaveOut), introPages: TILED_INTRO_PAGES };
-}
+export const tiledPdfPlan = (drawing: TemplateDrawing, options: TilingOptions): TiledPdfPlan => tiledPrintPlan(drawing, options);
 
 /** A registration mark: where (drawing mm, as seen) and on which tiles it is drawn. */
 export interface RegistrationMark {

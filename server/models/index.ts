@@ -14,6 +14,7 @@ import { LibraryRevision, initLibraryRevision } from './library-revision';
 import { LibraryShare, initLibraryShare } from './library-share';
 import { PasswordReset, initPasswordReset } from './password-reset';
 import { BuildEventRow, BuildPhotoRow, BuildSetting, initBuildLog } from './build-log';
+import { CutListArrangement, initCutListArrangement } from './cut-list-arrangement';
 
 /** Define every model and, in this one place, their associations. */
 export function initModels(sequelize: Sequelize) {
@@ -32,6 +33,7 @@ export function initModels(sequelize: Sequelize) {
   initLibraryPin(sequelize);
   initLibraryNotice(sequelize);
   initBuildLog(sequelize);
+  initCutListArrangement(sequelize);
 
   HullMember.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   HullMember.belongsTo(Hull, { foreignKey: 'hullId', as: 'hull' });
@@ -52,9 +54,11 @@ export function initModels(sequelize: Sequelize) {
   LibraryNotice.belongsTo(LibraryRevision, { foreignKey: 'revisionId', as: 'revision' });
   BuildEventRow.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
   BuildPhotoRow.belongsTo(User, { foreignKey: 'uploaderId', as: 'uploader' });
+  CutListArrangement.belongsTo(User, { foreignKey: 'savedBy', as: 'saver' });
   return { User, Hull, HullMember, Session, PlanRevision, PlanDraft };
 }
 
 export { Hull, HullMember, PlanDraft, PlanRevision, Session, User };
 export { AccountSetting, Invitation, LibraryItem, LibraryNotice, LibraryPin, LibraryRevision, LibraryShare, PasswordReset };
 export { BuildEventRow, BuildPhotoRow, BuildSetting };
+export { CutListArrangement };

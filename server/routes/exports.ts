@@ -1,21 +1,31 @@
 import type { Response, Router } from 'express';
-import { cutListQuerySchema, dxfQuerySchema, rollPdfQuerySchema, tiledPdfQuerySchema } from '../../shared/api/exports';
-import { PAPER_A3, PAPER_A4, PAPER_LETTER, PAPER_TABLOID, type PaperSize } from '../../shared/geometry/tiling';
+import { arrangementSaveSchema, cutListQuerySchema, dxfQuerySchema, exportJobStartSchema, rollPdfQuerySchema, tiledPdfQuerySchema, tilingOfQuery, type PartDrawingResponse } from '../../shared/api/exports';
 import { parseInput } from '../errors';
-import { bevelTableCsv, bevelTablePdf, cutListCsv, cutListNesting, cutListPdf, dxfOfDrawings, rollPdf, tiledPdf, zipOf } from '../exports';
+import { tiledPdfPlan } from '../exports';
 import { accessOf, hullAccess } from '../http/hull-access';
-import { allBevelRows, allDrawings, builtPart, cutListPieces, exportSourceOf, layerDrawing, type ExportSource } from '../services/exports';
+import { arrangementGet, arrangementReset, arrangementSave, cutListNestingFor } from '../services/cut-list-arrangement';
+import {
+  bevelsCsvFile,
+  bevelsPdfFile,
+  cutListCsvFile,
+  cutListPdfFile,
+  exportFileName,
+  type ExportFile,
+  hullDxfFile,
+  partDxfFile,
+  rollPdfFile,
+  tiledPdfFile,
+  tiledPdfFileName,
+  withInputErrors,
+  zipFileCount,
+  zipFileOf,
+} from '../services/export-files';
+import { exportIndexOf } from '../services/export-index';
+import { exportJobFile, exportJobStart, exportJobStatus } from '../services/export-jobs';
+import { builtPart, exportSourceOf, layerDrawing } from '../services/exports';
 
-const PAPERS: Record<string, PaperSize> = { a4: PAPER_A4, letter: PAPER_LETTER, a3: PAPER_A3, tabloid: PAPER_TABLOID };
-
-/** File names say the hull, the part and the revision, so a printed sheet can be traced to its source. */
-function fileName(source: ExportSource, what: string, ext: string): string {
-  const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 50);
-  return `${slug(source.hullName) || 'hull'}-${slug(what)}-r${source.revisionId}.${ext}`;
-}
-
-function send(res: Response, type: string, name: string, body: Buffer) {
-  res.type(type).attachment(name).set('Content-Length', String(body.length)).send(body);
+function send(res: Response, file: ExportFile) {
+  res.type(file.type).attachment(file.name).set('Content-Length', String(file.data.length)).send(file.data);
 }
 
 async function sourceFor(res: Response) {
@@ -24,88 +34,107 @@ async function sourceFor(res: Response) {
 }
 
 export function registerExportRoutes(router: Router) {
+  router.get('/api/hulls/:hullId/exports', hullAccess('export'), async (_req, res) => {
+    res.json(await exportIndexOf(accessOf(res).hullId, await sourceFor(res)));
+  });
+
+  // The drawing of one layer as the writers see it: the Print shop lays the tile grid over it with the
+  // same shared function the PDF writer uses, so the preview is the file.
+  router.get('/api/hulls/:hullId/exports/parts/:partId/drawing', hullAccess('export'), async (req, res) => {
+    const q = parseInput(dxfQuerySchema.pick({ layer: true }), req.query);
+    const source = await sourceFor(res);
+    const drawing = layerDrawing(source, builtPart(source, String(req.params.partId)), q.layer ?? 1);
+    res.json({ revisionId: source.revisionId, drawing } satisfies PartDrawingResponse);
+  });
+
   router.get('/api/hulls/:hullId/exports/parts/:partId/template.pdf', hullAccess('export'), async (req, res) => {
     const q = parseInput(tiledPdfQuerySchema, req.query);
     const source = await sourceFor(res);
-    const part = builtPart(source, String(req.params.partId));
-    const paper = q.paper === 'custom' ? { id: 'custom', name: `${q.widthMm} × ${q.heightMm} mm`, widthMm: q.widthMm!, heightMm: q.heightMm! } : PAPERS[q.paper];
-    const pdf = await tiledPdf(layerDrawing(source, part, q.layer), { paper, orientation: q.orientation, marginMm: q.marginMm, overlapMm: q.overlapMm });
-    send(res, 'application/pdf', fileName(source, `${part.name}-layer-${q.layer}-tiles`, 'pdf'), pdf);
+    send(res, await tiledPdfFile(source, builtPart(source, String(req.params.partId)), q));
   });
 
   router.get('/api/hulls/:hullId/exports/parts/:partId/roll.pdf', hullAccess('export'), async (req, res) => {
     const q = parseInput(rollPdfQuerySchema, req.query);
     const source = await sourceFor(res);
-    const part = builtPart(source, String(req.params.partId));
-    const pdf = await rollPdf(layerDrawing(source, part, q.layer), { rollWidthMm: q.rollWidthMm });
-    send(res, 'application/pdf', fileName(source, `${part.name}-layer-${q.layer}-roll`, 'pdf'), pdf);
+    send(res, await rollPdfFile(source, builtPart(source, String(req.params.partId)), q));
   });
 
   router.get('/api/hulls/:hullId/exports/parts/:partId/template.dxf', hullAccess('export'), async (req, res) => {
     const q = parseInput(dxfQuerySchema, req.query);
     const source = await sourceFor(res);
-    const part = builtPart(source, String(req.params.partId));
-    const drawings = q.layer ? [layerDrawing(source, part, q.layer)] : part.layers.map((_, i) => source.drawing(part, i));
-    send(res, 'application/dxf', fileName(source, `${part.name}${q.layer ? `-layer-${q.layer}` : ''}-${q.units}`, 'dxf'), dxfOfDrawings(drawings, { units: q.units }));
+    send(res, partDxfFile(source, builtPart(source, String(req.params.partId)), q));
   });
 
   router.get('/api/hulls/:hullId/exports/hull.dxf', hullAccess('export'), async (req, res) => {
-    const q = parseInput(dxfQuerySchema, req.query);
-    const source = await sourceFor(res);
-    send(res, 'application/dxf', fileName(source, `all-parts-${q.units}`, 'dxf'), dxfOfDrawings(allDrawings(source), { units: q.units }));
+    send(res, hullDxfFile(await sourceFor(res), parseInput(dxfQuerySchema, req.query)));
   });
 
   router.get('/api/hulls/:hullId/exports/bevels.csv', hullAccess('export'), async (_req, res) => {
-    const source = await sourceFor(res);
-    send(res, 'text/csv; charset=utf-8', fileName(source, 'bevel-table', 'csv'), bevelTableCsv(allBevelRows(source), { units: source.units }));
+    send(res, bevelsCsvFile(await sourceFor(res)));
   });
 
   router.get('/api/hulls/:hullId/exports/bevels.pdf', hullAccess('export'), async (_req, res) => {
-    const source = await sourceFor(res);
-    const pdf = await bevelTablePdf(allBevelRows(source), { hullName: source.hullName, revisionId: String(source.revisionId), date: source.date, units: source.units });
-    send(res, 'application/pdf', fileName(source, 'bevel-table', 'pdf'), pdf);
+    send(res, await bevelsPdfFile(await sourceFor(res)));
   });
 
   router.get('/api/hulls/:hullId/exports/cut-list.csv', hullAccess('export'), async (req, res) => {
     const q = parseInput(cutListQuerySchema, req.query);
     const source = await sourceFor(res);
-    const pieces = cutListPieces(source);
-    const nesting = cutListNesting(pieces, { sheet: { widthMm: q.sheetWidthMm, lengthMm: q.sheetLengthMm }, kerfMm: q.kerfMm });
-    send(res, 'text/csv; charset=utf-8', fileName(source, 'cut-list', 'csv'), cutListCsv(pieces, nesting, { units: source.units }));
+    send(res, cutListCsvFile(source, await cutListNestingFor(accessOf(res).hullId, source, q)));
   });
 
   router.get('/api/hulls/:hullId/exports/cut-list.pdf', hullAccess('export'), async (req, res) => {
     const q = parseInput(cutListQuerySchema, req.query);
     const source = await sourceFor(res);
-    const pdf = await cutListPdf(cutListPieces(source), {
-      hullName: source.hullName,
-      revisionId: String(source.revisionId),
-      date: source.date,
-      units: source.units,
-      sheet: { widthMm: q.sheetWidthMm, lengthMm: q.sheetLengthMm },
-      kerfMm: q.kerfMm,
-      totals: { filletVolumeMl: source.frames.estimate.filletMl, glassTapeM: source.frames.estimate.tapeLengthMm / 1000 },
-    });
-    send(res, 'application/pdf', fileName(source, 'cut-list', 'pdf'), pdf);
+    send(res, await cutListPdfFile(source, await cutListNestingFor(accessOf(res).hullId, source, q)));
   });
 
-  // Everything for the hull in one download: per part and layer the A4 tiles and the DXF, all parts in
-  // one DXF, the bevel table and the cut list.
   router.get('/api/hulls/:hullId/exports/all.zip', hullAccess('export'), async (_req, res) => {
     const source = await sourceFor(res);
-    const files: { name: string; data: Buffer }[] = [];
-    for (const part of source.built) {
-      for (let i = 0; i < part.layers.length; i += 1) {
-        const d = source.drawing(part, i);
-        const base = fileName(source, `${part.name}-layer-${i + 1}`, '').replace(/\.$/, '');
-        files.push({ name: `patterns/${base}-a4-tiles.pdf`, data: await tiledPdf(d, { paper: PAPER_A4, orientation: 'portrait' }) });
-        files.push({ name: `dxf/${base}-mm.dxf`, data: dxfOfDrawings([d], { units: 'mm' }) });
-      }
+    send(res, await zipFileOf(source, await cutListNestingFor(accessOf(res).hullId, source)));
+  });
+
+  // Exports made in the background with their progress (services/export-jobs.ts says why).
+  router.post('/api/hulls/:hullId/exports/jobs', hullAccess('export'), async (req, res) => {
+    const input = parseInput(exportJobStartSchema, req.body);
+    const { hullId } = accessOf(res);
+    const owner = { hullId, userId: req.user!.id };
+    const onFault = (err: unknown) => req.log?.error({ err }, 'export job failed');
+    const source = await sourceFor(res);
+    if (input.kind === 'zip') {
+      const nesting = await cutListNestingFor(hullId, source);
+      const plan = { fileName: exportFileName(source, 'everything', 'zip'), unit: 'files' as const, total: zipFileCount(source) };
+      res.status(202).json({ job: exportJobStart(owner, plan, (progress) => zipFileOf(source, nesting, progress), onFault) });
+      return;
     }
-    files.push({ name: fileName(source, 'all-parts-mm', 'dxf'), data: dxfOfDrawings(allDrawings(source), { units: 'mm' }) });
-    files.push({ name: fileName(source, 'bevel-table', 'csv'), data: bevelTableCsv(allBevelRows(source), { units: source.units }) });
-    const pieces = cutListPieces(source);
-    files.push({ name: fileName(source, 'cut-list', 'csv'), data: cutListCsv(pieces, cutListNesting(pieces), { units: source.units }) });
-    send(res, 'application/zip', fileName(source, 'everything', 'zip'), await zipOf(files));
+    const part = builtPart(source, input.partId);
+    const q = input.query;
+    // Planned now, so a paper too small or a part that cannot be drawn is refused by this request, not later.
+    const printPlan = await withInputErrors(() => tiledPdfPlan(layerDrawing(source, part, q.layer), tilingOfQuery(q)));
+    const plan = { fileName: tiledPdfFileName(source, part, q), unit: 'pages' as const, total: printPlan.introPages + printPlan.printed.length };
+    res.status(202).json({ job: exportJobStart(owner, plan, (progress) => tiledPdfFile(source, part, q, progress), onFault) });
+  });
+
+  router.get('/api/hulls/:hullId/exports/jobs/:jobId', hullAccess('export'), async (req, res) => {
+    res.json({ job: exportJobStatus(accessOf(res).hullId, req.user!.id, String(req.params.jobId)) });
+  });
+
+  router.get('/api/hulls/:hullId/exports/jobs/:jobId/file', hullAccess('export'), async (req, res) => {
+    send(res, exportJobFile(accessOf(res).hullId, req.user!.id, String(req.params.jobId)));
+  });
+
+  // The cut list arranged by hand: everyone who may export reads it; owner and builder change it (the
+  // capability of changing parts: what is cut from which sheet is the shop's decision, not the designer's).
+  router.get('/api/hulls/:hullId/cut-list/arrangement', hullAccess('export'), async (_req, res) => {
+    res.json(await arrangementGet(accessOf(res).hullId, await sourceFor(res)));
+  });
+
+  router.put('/api/hulls/:hullId/cut-list/arrangement', hullAccess('edit-parts'), async (req, res) => {
+    const input = parseInput(arrangementSaveSchema, req.body);
+    res.json(await arrangementSave(accessOf(res).hullId, req.user!.id, await sourceFor(res), input));
+  });
+
+  router.delete('/api/hulls/:hullId/cut-list/arrangement', hullAccess('edit-parts'), async (_req, res) => {
+    res.json(await arrangementReset(accessOf(res).hullId, await sourceFor(res)));
   });
 }

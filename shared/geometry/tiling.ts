@@ -1,4 +1,4 @@
-import { type DrawingPath, type DrawingPathRole, type TemplateDrawing, drawingPathBounds, drawingPathPoints } from './drawing';
+import { type DrawingPath, type DrawingPathRole, type TemplateDrawing, drawingAsSeen, drawingBounds, drawingIssues, drawingPathBounds, drawingPathPoints } from './drawing';
 import type { Bounds } from './polygon';
 import { GeometryInputError, type GeometryIssue, type SectionPoint } from './types';
 
@@ -272,3 +272,40 @@ export function tilesWithContent(grid: TileGrid, drawing: Content, leaveOut: Til
   const flat = drawing.paths.map(flatOf);
   return grid.tiles.filter((t) => hasContent(t.window, flat, drawing, leaveOut));
 }
+
+/** Pages of a tiled print before its first sheet: the assembly map with the instructions. */
+export const TILED_INTRO_PAGES = 1;
+
+/** Smallest printable area (mm) each way that still holds the 100 mm check square with room round it. */
+export const TILED_MIN_PRINTABLE_MM = 112;
+
+/** What a tiled print holds: the drawing as printed, the grid over it, the sheets printed, the pages before them. */
+export interface TiledPrintPlan {
+  seen: TemplateDrawing;
+  grid: TileGrid;
+  printed: Tile[];
+  introPages: number;
+}
+
+/**
+ * The plan of a tiled print of one drawing: the drawing as seen from its marked face, the tile grid over
+ * its extents and the sheets that show something. The tiled PDF writer and the Print shop preview both
+ * call this, so the grid on the screen and the pages in the file cannot differ.
+ * @throws GeometryInputError when the drawing has issues (`drawingIssues`), has no lines, or the printable
+ *   area cannot hold the check square (field `paper`), and as `tileGrid`.
+ */
+export function tiledPrintPlan(drawing: TemplateDrawing, options: TilingOptions): TiledPrintPlan {
+  const issues = drawingIssues(drawing);
+  if (issues.length) throw new GeometryInputError(issues);
+  const seen = drawingAsSeen(drawing);
+  const extents = drawingBounds(seen);
+  if (!extents) throw new GeometryInputError([{ code: 'drawing-empty', message: `${drawing.title.partName}: the drawing has no lines to print`, field: 'paths' }]);
+  const grid = tileGrid(extents, options);
+  if (Math.min(grid.printableWidthMm, grid.printableHeightMm) < TILED_MIN_PRINTABLE_MM) {
+    throw new GeometryInputError([{ code: 'tiling-paper-small', message: `the printable area (${grid.printableWidthMm.toFixed(1)} x ${grid.printableHeightMm.toFixed(1)} mm) must be at least ${TILED_MIN_PRINTABLE_MM} mm each way to hold the 100 mm check square`, field: 'paper' }]);
+  }
+  return { seen, grid, printed: tilesWithContent(grid, seen, options.leaveOut), introPages: TILED_INTRO_PAGES };
+}
+
+/** Pages in the tiled PDF of a plan: the assembly map and every printed sheet. */
+export const tiledPrintPageCount = (plan: Pick<TiledPrintPlan, 'introPages' | 'printed'>): number => plan.introPages + plan.printed.length;

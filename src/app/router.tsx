@@ -20,6 +20,8 @@ import { HullInvitationsRoute } from './routes/hull-invitations';
 import { HullLibraryRoute } from './routes/hull-library';
 import { HullPinCompareRoute } from './routes/hull-pin-compare';
 import { HullBuildLogRoute, HullBuildSheetRoute } from './routes/build-log';
+import { HullDownloadsRoute } from './routes/hull-downloads';
+import { HullPrintShopRoute } from './routes/hull-print-shop';
 import { InvitationRoute } from './routes/invitation';
 import { LibraryRoute } from './routes/library';
 import { LibraryItemRoute } from './routes/library-item';
@@ -67,6 +69,8 @@ export const routes: RouteObject[] = [
               { path: 'invitations', element: <HullInvitationsRoute />, errorElement: routeError },
               { path: 'build-log', element: <HullBuildLogRoute />, errorElement: routeError },
               { path: 'build-log/:partId/sheet', element: <HullBuildSheetRoute />, errorElement: routeError },
+              { path: 'print-shop', element: <HullPrintShopRoute />, errorElement: routeError },
+              { path: 'downloads', element: <HullDownloadsRoute />, errorElement: routeError },
             ],
           },
           { path: 'library', element: <LibraryRoute />, errorElement: routeError },

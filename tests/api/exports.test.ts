@@ -3,7 +3,7 @@ import type TestAgent from 'supertest/lib/agent';
 import DxfParser from 'dxf-parser';
 import JSZip from 'jszip';
 import { demoPlan } from '../../server/seed/demo-plan';
-import { makeUser, signedIn, testServer, type TestServer } from './support';
+import { binary, makeUser, signedIn, testServer, type TestServer } from './support';
 
 let server: TestServer;
 let owner: TestAgent;
@@ -14,13 +14,6 @@ beforeAll(async () => {
   hullId = (await owner.post('/api/hulls').send({ name: 'Export test', units: 'mm' })).body.hull.id;
 });
 afterAll(() => server.close());
-
-const binary = (agent: TestAgent, path: string) =>
-  agent.get(path).buffer(true).parse((res, cb) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
 
 describe('exports from the stored plan', () => {
   it('refuses to export before a revision is saved, saying why', async () => {

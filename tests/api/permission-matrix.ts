@@ -2,6 +2,7 @@ import { demoPlan } from '../../server/seed/demo-plan';
 import { allCrew, crew, editors, everyone, signedInOnly, type Caller } from './matrix-statuses';
 import { collaborationMatrix } from './matrix-collaboration';
 import { buildLogMatrix } from './matrix-build-log';
+import { exportsMatrix } from './matrix-exports';
 
 /**
  * The permission matrix: one row for every route of the app, with the status each kind of caller gets.
@@ -133,4 +134,5 @@ export const matrix: Record<string, MatrixRow> = {
   'GET /api/hulls/:hullId/plan/export/plan.json': { path: (f) => `/api/hulls/${f.hullId}/plan/export/plan.json`, expect: crew(200, allCrew) },
   ...collaborationMatrix,
   ...buildLogMatrix,
+  ...exportsMatrix,
 };

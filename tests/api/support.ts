@@ -78,3 +78,11 @@ export function routesOf(app: Express): string[] {
   walk((app as unknown as { router: { stack: RouterLayer[] } }).router.stack);
   return found;
 }
+
+/** GET a file as a Buffer in `body` (supertest parses only text and JSON by itself): PDFs, zips, DXFs. */
+export const binary = (agent: TestAgent, path: string) =>
+  agent.get(path).buffer(true).parse((res, cb) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => cb(null, Buffer.concat(chunks)));
+  });

@@ -13,6 +13,9 @@ import {
   tileHasContent,
   tileName,
   tilesWithContent,
+  TILED_INTRO_PAGES,
+  tiledPrintPageCount,
+  tiledPrintPlan,
 } from '../../shared/geometry/tiling';
 import type { TemplateDrawing } from '../../shared/geometry/drawing';
 import { GeometryInputError } from '../../shared/geometry/types';
@@ -162,5 +165,17 @@ describe('tileHasContent and tilesWithContent', () => {
     expect(kept.map((t) => t.name)).not.toContain(centre.name);
     // names are those of the full grid (the map matches)
     for (const t of kept) expect(t.name).toBe(tileName(t.row, t.col));
+  });
+});
+
+describe('tiledPrintPlan', () => {
+  it('counts the assembly map and the sheets with something on them, and refuses a paper too small for the check square', () => {
+    // analytic: a 150 x 150 mm square outline (one closed cut loop) on A4 portrait with no margin, overlap or padding fits one sheet: 2 pages
+    const square = { title: { hullName: 'H', partName: 'Square', partKind: 'bulkhead', stationName: '', layerIndex: 1, layerCount: 1, plyThicknessMm: 6, face: 'aft' as const, revisionId: '1', date: '2025-01-01', units: 'mm' as const, filletClearanceMm: null }, paths: [{ kind: 'polyline' as const, role: 'outer-cut' as const, points: [{ y: 0, z: 0 }, { y: 150, z: 0 }, { y: 150, z: 150 }, { y: 0, z: 150 }], closed: true }], labels: [], bevelMarks: [], centres: [], checkDimension: null };
+    const plan = tiledPrintPlan(square, { paper: PAPER_A4, orientation: 'portrait', marginMm: 0, overlapMm: 0, paddingMm: 0 });
+    expect(plan.grid.tiles).toHaveLength(1);
+    expect(tiledPrintPageCount(plan)).toBe(TILED_INTRO_PAGES + 1);
+    // analytic: 120 mm paper less 2 x 6.35 mm margins leaves 107.3 mm, under the 112 mm the check square needs
+    expect(() => tiledPrintPlan(square, { paper: paperCustom(120, 120), orientation: 'portrait' })).toThrow(/at least 112 mm/);
   });
 });
