@@ -9,9 +9,14 @@ import { fork } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import type { BenchServerReady } from './plan-http-server';
 
-/** Start the server in its own process (plan-http-server.ts) and wait until it has its hulls and session. */
+/**
+ * Start the server in its own process (plan-http-server.ts) and wait until it has its hulls and session.
+ * BENCH_SERVER_NODE_ARGS adds Node options to that process only, e.g. "--cpu-prof --cpu-prof-dir=/tmp/p"
+ * to profile the server (NODE_OPTIONS refuses --cpu-prof, and would profile the load generator too).
+ */
 async function startServer() {
-  const child = fork(fileURLToPath(new URL('./plan-http-server.ts', import.meta.url)), [], { execArgv: ['--import', 'tsx'], env: process.env });
+  const extra = (process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  const child = fork(fileURLToPath(new URL('./plan-http-server.ts', import.meta.url)), [], { execArgv: ['--import', 'tsx', ...extra], env: process.env });
   const ready = await new Promise<BenchServerReady>((resolve, reject) => {
     child.once('message', (m) => resolve(m as BenchServerReady));
     child.once('exit', (code) => reject(new Error(`the bench server stopped (exit ${code})`)));
