@@ -4,9 +4,9 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { root, setUp, tsxNode } from './lib/setup.mjs';
+import { buildClient, root, setUp, tsxNode } from './lib/setup.mjs';
 import { secret } from './lib/mariadb.mjs';
-import { freePort, run, say } from './lib/sh.mjs';
+import { aptInstall, freePort, run, say, which } from './lib/sh.mjs';
 
 const dataRoot = mkdtempSync(path.join(os.tmpdir(), 'loftbench-bench-'));
 const { env, stop } = await setUp({ dataRoot, dbPort: await freePort(), database: 'loftbench_bench', dbPassword: secret(), sessionSecret: secret(32), mode: 'test', seedDemo: false });
@@ -15,6 +15,11 @@ try {
   run(process.execPath, ['node_modules/vitest/vitest.mjs', 'bench', '--run', '--project', 'unit'], { cwd: root, env });
   say('HTTP benchmark of the plan read and save...');
   run(process.execPath, [...tsxNode, 'tests/bench/plan-http.ts'], { cwd: root, env });
+  say('Browser benchmark of a drag in the body plan (headless Chromium, built client)...');
+  if (!which('chromium')) aptInstall(['chromium'], 'Chromium (for the browser benchmark)');
+  const clientDir = path.join(dataRoot, 'client');
+  buildClient(clientDir, env);
+  run(process.execPath, [...tsxNode, 'tests/bench/drawing-drag.ts'], { cwd: root, env: { ...env, LOFTBENCH_CLIENT_DIR: clientDir, LOFTBENCH_CHROMIUM: which('chromium') } });
 } finally {
   await stop();
   rmSync(dataRoot, { recursive: true, force: true });

@@ -2,6 +2,7 @@ import { createBrowserRouter, Navigate, type RouteObject } from 'react-router-do
 import { RootError, RouteError } from './layout/route-error';
 import { HullRoute } from './routes/hull';
 import { HullFramesRoute } from './routes/hull-frames';
+import { HullDrawingRoute } from './routes/hull-drawing';
 import { HullHistoryRoute } from './routes/hull-history';
 import { HullLinesRoute } from './routes/hull-lines';
 import { HullOverviewRoute } from './routes/hull-overview';
@@ -63,6 +64,7 @@ export const routes: RouteObject[] = [
               { index: true, element: <HullOverviewRoute />, errorElement: routeError },
               { path: 'lines', element: <HullLinesRoute />, errorElement: routeError },
               { path: 'frames', element: <HullFramesRoute />, errorElement: routeError },
+              { path: 'drawing', element: <HullDrawingRoute />, errorElement: routeError },
               { path: 'history', element: <HullHistoryRoute />, errorElement: routeError },
               { path: 'library', element: <HullLibraryRoute />, errorElement: routeError },
               { path: 'library/:pinId/compare', element: <HullPinCompareRoute />, errorElement: routeError },

@@ -92,6 +92,7 @@ describe('Crew on the hull page', () => {
       ['Crew', '/hulls/3'],
       ['Lines', '/hulls/3/lines'],
       ['Frames', '/hulls/3/frames'],
+      ['Drawing', '/hulls/3/drawing'],
       ['Revisions', '/hulls/3/history'],
       ['Build log', '/hulls/3/build-log'],
       ['Print shop', '/hulls/3/print-shop'],

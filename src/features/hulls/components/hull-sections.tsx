@@ -4,6 +4,7 @@ const hullParts = [
   { to: '', label: 'Crew', end: true },
   { to: 'lines', label: 'Lines', end: false },
   { to: 'frames', label: 'Frames', end: false },
+  { to: 'drawing', label: 'Drawing', end: false },
   { to: 'history', label: 'Revisions', end: false },
   { to: 'build-log', label: 'Build log', end: false },
   { to: 'print-shop', label: 'Print shop', end: false },

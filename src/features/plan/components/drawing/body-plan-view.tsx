@@ -1,0 +1,416 @@
+import { memo, useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent as ReactKeyboardEvent } from 'react';
+import { flushSync } from 'react-dom';
+import type Konva from 'konva';
+import { Circle, Group, Line, Rect, RegularPolygon } from 'react-konva';
+import { Grid3x3, Magnet } from 'lucide-react';
+import type { BuiltHull } from '../../../../../shared/geometry/hull';
+import type { HullLines } from '../../../../../shared/geometry/hull-schema';
+import type { Plan } from '../../../../../shared/geometry/plan-schema';
+import type { Notation } from '../../../../../shared/geometry/notation-schema';
+import { lengthPrecisionStepMm } from '../../../../../shared/geometry/notation';
+import type { Section } from '../../../../../shared/geometry/section';
+import { Button } from '../../../../components/ui/button';
+import { cellSet, type CellValue } from '../../editor/cell-actions';
+import { offsetDelete, offsetMove, offsetPointOf, type SectionPlanePoint } from '../../editor/offset-actions';
+import type { Edit } from '../../editor/types';
+import { edit } from '../../editor/types';
+import type { CellFlag } from '../../hooks/use-lines-check';
+import {
+  bodyPlanBounds,
+  bodyPlanSides,
+  drawingPointOf,
+  offsetHandlesAt,
+  offsetPointsOf,
+  offsetSnap,
+  referenceLinesOf,
+  sectionPointOf,
+  sidesOf,
+  type BodyPlanSide,
+  type OffsetHandle,
+} from '../../drawing/body-plan';
+import { DRAG_MEASURES } from '../../drawing/drag-measures';
+import { createSectionCache, stationSectionOf } from '../../drawing/station-section';
+import { toHull, toScreen, type Point, type Viewport } from '../../drawing/viewport';
+import { lengthWords } from '../../format';
+import { DrawingStage } from './drawing-stage';
+import { KonvaLabel } from './konva-label';
+
+/** The offset chosen on the drawing or in the side table. */
+export interface OffsetSelection {
+  stationId: string;
+  lineId: string | null;
+}
+
+export interface BodyPlanViewProps {
+  plan: Plan;
+  /** The whole hull built from the plan's lines (sections are cut from it). */
+  hull: BuiltHull;
+  readOnly: boolean;
+  notation: Notation;
+  selection: OffsetSelection | null;
+  onSelect: (selection: OffsetSelection) => void;
+  /** Make one change of the plan (through the editor's store, so undo spans table and drawing). */
+  onEdit: (edit: Edit) => void;
+  /** Fairness flags by line id, then `stationId:field`. */
+  cellFlags: Map<string, Map<string, CellFlag>>;
+}
+
+const INK = '#1a2329';
+const FORWARD = '#0e5466';
+const AFT = '#7d1a14';
+const REFERENCE = '#8a949b';
+const CAUTION = '#b7791f';
+const KNUCKLE = '#6b4a00';
+const HANDLE_RADIUS_PX = 9;
+/** How near (screen px) another point must be to pull a dragged offset to it. */
+const SNAP_PX = 8;
+/** A pointer that moves less than this (px) between down and up chose a point; it did not drag it. */
+const CLICK_SLOP_PX = 3;
+/** Grid spacings offered (mm), the first the default: 10 mm, or about 1/2 in for an imperial hull. */
+const GRID_MM = { mm: 10, in: 12.7, ftin: 12.7 } as const;
+
+const flat = (view: Viewport, pts: Point[]): number[] => pts.flatMap((p) => {
+  const s = toScreen(view, p);
+  return [s.x, s.y];
+});
+
+interface Drag {
+  handle: OffsetHandle;
+  side: 'forward' | 'aft';
+  pointerId: number;
+  /** The latest pointer position not yet drawn (client px), and when each move since the last frame came (ms). */
+  pending: { clientX: number; clientY: number; moves: number[] } | null;
+  frame: number;
+  /** Where the pointer went down (client px), and whether it has since moved far enough to be a drag. */
+  startX: number;
+  startY: number;
+  moved: boolean;
+  /** Takes off the window listeners this drag put on. */
+  detach: () => void;
+}
+
+interface Preview {
+  stationId: string;
+  lineId: string;
+  value: CellValue;
+  /** Where the offset is (mm): on its line's direction, snapped. */
+  at: SectionPlanePoint;
+  lines: HullLines;
+  section: Section | null;
+}
+
+/** The section, unless a point of it is not a finite number (nothing is drawn at NaN). */
+function drawable(section: Section | null): Section | null {
+  return section && section.vertices.every((v) => Number.isFinite(v.y) && Number.isFinite(v.z)) ? section : null;
+}
+
+/** One station's section on its side (or both), drawn as one polyline a side. */
+const SectionShape = memo(function SectionShape({
+  view,
+  section,
+  side,
+  selected,
+  stationId,
+  onPick,
+}: {
+  view: Viewport;
+  section: Section;
+  side: BodyPlanSide;
+  selected: boolean;
+  stationId: string;
+  /** Choose this station; null where a click should do nothing. */
+  onPick: ((stationId: string) => void) | null;
+}) {
+  return (
+    <>
+      {sidesOf(side).map((s) => (
+        <Line
+          key={s}
+          points={flat(view, section.vertices.map((v) => drawingPointOf(v, s)))}
+          stroke={selected ? INK : s === 'forward' ? FORWARD : AFT}
+          strokeWidth={selected ? 3.5 : 1.5}
+          hitStrokeWidth={10}
+          lineJoin="round"
+          listening={onPick !== null}
+          onPointerClick={onPick ? () => onPick(stationId) : undefined}
+          perfectDrawEnabled={false}
+        />
+      ))}
+      {section.nodes
+        .filter((n) => n.knuckle)
+        .flatMap((n, i) =>
+          sidesOf(side).map((s) => {
+            const p = toScreen(view, drawingPointOf(n, s));
+            return <Rect key={`${s}-${i}`} x={p.x - 4} y={p.y - 4} width={8} height={8} stroke={KNUCKLE} strokeWidth={2} listening={false} />;
+          }),
+        )}
+    </>
+  );
+});
+
+/**
+ * The body plan: every station's section, forward ones right of the centreline and aft ones left, over
+ * the waterlines, buttocks and diagonals; knuckles marked with squares and fairness flags with triangles.
+ * The chosen station's offsets are handles: each is dragged along the one direction its cell allows, the
+ * section following live (only that station is worked out again, at most once a frame), and one edit is
+ * made when the drag ends.
+ */
+export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSelect, onEdit, cellFlags }: BodyPlanViewProps) {
+  const lines = plan.lines;
+  const stations = lines.stations;
+  const cache = useRef(createSectionCache());
+  const sides = useMemo(() => bodyPlanSides(lines), [lines]);
+  const sections = useMemo(() => new Map(lines.stations.map((s) => [s.id, drawable(cache.current(lines, s.id, hull))])), [lines, hull]);
+  // A station with offsets but no section to draw (beyond the hull's ends, or a point that is not a number) is said in words.
+  const notDrawn = lines.stations.filter((s) => !sections.get(s.id) && lines.lines.some((l) => (l.cells as Record<string, unknown>)[s.id] != null));
+  const bounds = useMemo(() => bodyPlanBounds(sections.values()) ?? { minX: -1000, minY: 0, maxX: 1000, maxY: 1000 }, [sections]);
+  const references = useMemo(() => referenceLinesOf(lines, bounds), [lines, bounds]);
+  const allPoints = useMemo(() => offsetPointsOf(lines), [lines]);
+  const [snapGrid, setSnapGrid] = useState(false);
+  const [snapPoints, setSnapPoints] = useState(true);
+  const [preview, setPreview] = useState<Preview | null>(null);
+  const drag = useRef<Drag | null>(null);
+  const viewRef = useRef<Viewport | null>(null);
+  const groupRef = useRef<Konva.Group>(null);
+  const stationId = selection?.stationId ?? null;
+
+  // What the drag handler reads without being made again on every render.
+  const latest = useRef({ plan, notation, snapGrid, snapPoints, allPoints, onEdit, onSelect });
+  latest.current = { plan, notation, snapGrid, snapPoints, allPoints, onEdit, onSelect };
+  const pickStation = useCallback((id: string) => latest.current.onSelect({ stationId: id, lineId: null }), []);
+
+  useEffect(() => () => endDrag(false), []);
+
+  function moveTo(d: Drag, clientX: number, clientY: number): Preview | null {
+    const { plan: currentPlan, notation: n, snapGrid: grid, snapPoints: pts, allPoints: everyPoint } = latest.current;
+    const view = viewRef.current;
+    const stage = groupRef.current?.getStage();
+    const line = currentPlan.lines.lines.find((l) => l.id === d.handle.lineId);
+    if (!view || !stage || !line) return null;
+    const box = stage.container().getBoundingClientRect();
+    const to = sectionPointOf(toHull(view, { x: clientX - box.left, y: clientY - box.top }), d.side);
+    const snapped = offsetSnap(line, to, {
+      gridMm: grid ? GRID_MM[n.unit] : null,
+      points: pts ? everyPoint.filter((p) => !(p.stationId === d.handle.stationId && p.lineId === d.handle.lineId)).map((p) => p.at) : [],
+      toleranceMm: SNAP_PX / view.scale,
+      stepMm: lengthPrecisionStepMm(n),
+    });
+    const previewLines = cellSet(currentPlan, { lineId: line.id, stationId: d.handle.stationId, value: snapped.value }).lines;
+    return { stationId: d.handle.stationId, lineId: line.id, value: snapped.value, at: snapped.at, lines: previewLines, section: drawable(stationSectionOf(previewLines, d.handle.stationId, { trusted: true })) };
+  }
+
+  function onWindowMove(e: PointerEvent) {
+    const d = drag.current;
+    if (!d || e.pointerId !== d.pointerId) return;
+    // A press that stays put is a click choosing the point: it must not nudge the value by a pixel.
+    if (!d.moved && Math.hypot(e.clientX - d.startX, e.clientY - d.startY) < CLICK_SLOP_PX) return;
+    d.moved = true;
+    const started = performance.now();
+    d.pending = { clientX: e.clientX, clientY: e.clientY, moves: [...(d.pending?.moves ?? []), started] };
+    // At most one section a frame: pointer events can come faster than the screen paints.
+    if (!d.frame) d.frame = requestAnimationFrame(() => drawFrame(d));
+    performance.measure(DRAG_MEASURES.handler, { start: started, end: performance.now() });
+  }
+
+  function drawFrame(d: Drag) {
+    d.frame = 0;
+    const p = d.pending;
+    d.pending = null;
+    if (!p || drag.current !== d) return;
+    const began = performance.now();
+    const next = moveTo(d, p.clientX, p.clientY);
+    if (!next) return;
+    flushSync(() => setPreview(next));
+    // Draw now rather than at konva's next frame, so the point is under the pointer in this frame.
+    groupRef.current?.getLayer()?.draw();
+    const end = performance.now();
+    performance.measure(DRAG_MEASURES.frame, { start: began, end });
+    // Every move this frame answered, from its handler to the drawn frame (what the bench reports).
+    for (const at of p.moves) performance.measure(DRAG_MEASURES.moveToPaint, { start: at, end });
+  }
+
+  function onWindowUp(e: PointerEvent) {
+    const d = drag.current;
+    if (!d || e.pointerId !== d.pointerId) return;
+    endDrag(true, e);
+  }
+
+  function onWindowKey(e: KeyboardEvent) {
+    if (e.key === 'Escape' && drag.current) endDrag(false);
+  }
+
+  function endDrag(commit: boolean, e?: PointerEvent) {
+    const d = drag.current;
+    if (!d) return;
+    cancelAnimationFrame(d.frame);
+    drag.current = null;
+    d.detach();
+    const final = commit && e && d.moved ? moveTo(d, e.clientX, e.clientY) : null;
+    setPreview(null);
+    if (final) {
+      const { plan: current, onEdit: apply } = latest.current;
+      const line = current.lines.lines.find((l) => l.id === final.lineId);
+      const station = current.lines.stations.find((s) => s.id === final.stationId);
+      // The point as drawn last, already on its line's direction: the edit puts the same value in the cell.
+      if (line && station) apply(edit(`Move ${line.name} at ${station.name}`, offsetMove, { lineId: line.id, stationId: station.id, to: final.at }));
+    }
+  }
+
+  function startDrag(handle: OffsetHandle, side: 'forward' | 'aft', e: Konva.KonvaEventObject<PointerEvent>) {
+    if (readOnly || e.evt.button !== 0) return;
+    e.cancelBubble = true;
+    endDrag(false);
+    for (const name of Object.values(DRAG_MEASURES)) performance.clearMeasures(name);
+    // The listeners of this render, kept with the drag so the same ones come off when it ends.
+    const move = onWindowMove;
+    const up = onWindowUp;
+    const key = onWindowKey;
+    window.addEventListener('pointermove', move);
+    window.addEventListener('pointerup', up);
+    window.addEventListener('pointercancel', up);
+    window.addEventListener('keydown', key);
+    const detach = () => {
+      window.removeEventListener('pointermove', move);
+      window.removeEventListener('pointerup', up);
+      window.removeEventListener('pointercancel', up);
+      window.removeEventListener('keydown', key);
+    };
+    drag.current = { handle, side, pointerId: e.evt.pointerId, pending: null, frame: 0, startX: e.evt.clientX, startY: e.evt.clientY, moved: false, detach };
+    latest.current.onSelect({ stationId: handle.stationId, lineId: handle.lineId });
+  }
+
+  const shownLines = preview?.lines ?? lines;
+  const handles = stationId ? offsetHandlesAt(shownLines, stationId) : [];
+  const handleSide: 'forward' | 'aft' = stationId && sides.get(stationId) === 'aft' ? 'aft' : 'forward';
+  const flags = useMemo(() => {
+    const out: { key: string; at: Point; words: string }[] = [];
+    for (const [lineId, byCell] of cellFlags) {
+      const line = lines.lines.find((l) => l.id === lineId);
+      if (!line) continue;
+      for (const [key, flag] of byCell) {
+        const at = key.lastIndexOf(':');
+        const sid = key.slice(0, at);
+        const p = offsetPointOf(line, (line.cells as Record<string, CellValue | undefined>)[sid]);
+        const side = sides.get(sid);
+        if (!p || !side) continue;
+        for (const s of sidesOf(side)) out.push({ key: `${lineId}:${key}:${s}`, at: drawingPointOf(p, s), words: flag.message });
+      }
+    }
+    return out;
+  }, [cellFlags, lines, sides]);
+
+  // Left of the centreline is the aft sections' side: a half-breadth is never negative.
+  const pointerWords = useCallback(
+    (p: Point) => `Half-breadth ${lengthWords(Math.abs(p.x), notation)} ${p.x < 0 ? '(aft side)' : '(forward side)'} · Height ${lengthWords(p.y, notation)}`,
+    [notation],
+  );
+
+  const toolbarExtra = readOnly ? null : (
+    <>
+      <Button variant={snapGrid ? 'primary' : 'secondary'} aria-pressed={snapGrid} onClick={() => setSnapGrid((v) => !v)} title="Dragged points land on a grid">
+        <Grid3x3 aria-hidden="true" className="size-5" />
+        Snap to grid
+      </Button>
+      <Button variant={snapPoints ? 'primary' : 'secondary'} aria-pressed={snapPoints} onClick={() => setSnapPoints((v) => !v)} title="Dragged points line up with other points nearby">
+        <Magnet aria-hidden="true" className="size-5" />
+        Snap to points
+      </Button>
+    </>
+  );
+
+  // Delete (or Backspace) with the drawing focused takes the chosen point out of its section.
+  const onDrawingKey = (e: ReactKeyboardEvent<HTMLDivElement>) => {
+    if (readOnly || !selection?.lineId || (e.key !== 'Delete' && e.key !== 'Backspace')) return;
+    if ((e.target as HTMLElement).getAttribute('role') !== 'application') return;
+    const line = lines.lines.find((l) => l.id === selection.lineId);
+    const station = lines.stations.find((s) => s.id === selection.stationId);
+    if (!line || !station) return;
+    e.preventDefault();
+    onEdit(edit(`Delete ${line.name} at ${station.name}`, offsetDelete, { lineId: line.id, stationId: station.id }));
+    onSelect({ stationId: station.id, lineId: null });
+  };
+
+  const draggingId = preview?.stationId ?? null;
+  // Everything but the chosen station's handles and a dragged section: made again only when the view,
+  // the plan or the choice changes, so a drag frame redraws the overlay alone.
+  const drawStatic = useCallback(
+    (view: Viewport) => {
+      viewRef.current = view;
+      return (
+        <>
+          <Line points={flat(view, [{ x: 0, y: bounds.minY }, { x: 0, y: bounds.maxY }])} stroke={INK} strokeWidth={1.5} dash={[16, 4, 4, 4]} listening={false} />
+          {references.map((r) => (
+            <Group key={r.lineId} listening={false}>
+              {r.pieces.map(([a, b], i) => (
+                <Line key={i} points={flat(view, [a, b])} stroke={REFERENCE} strokeWidth={1} dash={r.kind === 'diagonal' ? [10, 4] : r.kind === 'buttock' ? [3, 3] : undefined} perfectDrawEnabled={false} />
+              ))}
+            </Group>
+          ))}
+          {stations.map((s) => {
+            const section = s.id === draggingId ? null : sections.get(s.id);
+            if (!section) return null;
+            return (
+              <SectionShape key={s.id} view={view} section={section} side={sides.get(s.id) ?? 'forward'} selected={s.id === stationId} stationId={s.id} onPick={s.id === stationId ? null : pickStation} />
+            );
+          })}
+          {flags.map((f) => {
+            const p = toScreen(view, f.at);
+            return <RegularPolygon key={f.key} x={p.x} y={p.y - 2} sides={3} radius={9} stroke={CAUTION} strokeWidth={2.5} listening={false} />;
+          })}
+          {references.map((r) => {
+            const p = toScreen(view, r.labelAt);
+            // Waterline names sit inside the right edge, the others just past their line's end.
+            return r.kind === 'waterline' ? (
+              <KonvaLabel key={`label-${r.lineId}`} x={p.x - 4} y={p.y - 17} text={r.name} size={12} colour="#4a5660" align="end" />
+            ) : (
+              <KonvaLabel key={`label-${r.lineId}`} x={p.x + 4} y={p.y - 17} text={r.name} size={12} colour="#4a5660" />
+            );
+          })}
+        </>
+      );
+    },
+    [bounds, references, stations, sections, sides, stationId, draggingId, flags, pickStation],
+  );
+
+  const drawOverlay = (view: Viewport) => {
+    viewRef.current = view;
+    return (
+      <Group ref={groupRef}>
+        {preview?.section && <SectionShape view={view} section={preview.section} side={sides.get(preview.stationId) ?? 'forward'} selected stationId={preview.stationId} onPick={null} />}
+        {handles.map((h) => {
+          const p = toScreen(view, drawingPointOf(h.at, handleSide));
+          const chosen = selection?.lineId === h.lineId;
+          if (readOnly) return <Circle key={h.lineId} x={p.x} y={p.y} radius={3.5} fill={INK} listening={false} />;
+          return (
+            <Circle
+              key={h.lineId}
+              name="interactive offset-handle"
+              x={p.x}
+              y={p.y}
+              radius={chosen ? HANDLE_RADIUS_PX + 2 : HANDLE_RADIUS_PX}
+              fill={chosen ? INK : '#ffffff'}
+              stroke={INK}
+              strokeWidth={2}
+              hitStrokeWidth={12}
+              onPointerDown={(e) => startDrag(h, handleSide, e)}
+              onPointerClick={() => latest.current.onSelect({ stationId: h.stationId, lineId: h.lineId })}
+            />
+          );
+        })}
+      </Group>
+    );
+  };
+
+  return (
+    <div data-testid="body-plan" data-dragging={preview ? 'true' : undefined} onKeyDown={onDrawingKey}>
+      <DrawingStage bounds={bounds} notation={notation} label="Body plan" toolbarExtra={toolbarExtra} pointerWords={pointerWords} overlay={drawOverlay}>
+        {drawStatic}
+      </DrawingStage>
+      {notDrawn.length > 0 && (
+        <p className="mt-2 text-caution">
+          No section drawn at {notDrawn.map((s) => s.name).join(', ')}: the hull has no section there from these offsets.
+        </p>
+      )}
+    </div>
+  );
+}
