@@ -153,6 +153,28 @@ export function camberSlopeAt(
   return curveSlope(deck.curve, deck.y);
 }
 
+/** The deck's height and slope across one station, worked out from a camber checked once (see `camberAtStation`). */
+export interface StationCamber {
+  /** As `camberHeightAt` at half-breadth `y` (mm). */
+  heightAt: (y: number) => number;
+  /** As `camberSlopeAt` at half-breadth `y` (mm). */
+  slopeAt: (y: number) => number;
+}
+
+/**
+ * `camberHeightAt` and `camberSlopeAt` for one station, with the camber and the beams checked and the
+ * curve built once rather than on every call: the deck line of every part samples the camber at dozens
+ * of half-breadths on each of three nearby stations. Same values, same errors (the station's when this
+ * is called, a half-breadth's when it is used).
+ */
+export function camberAtStation(camber: Camber, stationHalfBeamMm: number, referenceHalfBeamMm: number, toleranceMm: number = POINT_TOLERANCE_MM): StationCamber {
+  const station = stationCurve(camber, stationHalfBeamMm, referenceHalfBeamMm, toleranceMm);
+  return {
+    heightAt: (y) => curveHeight(station.curve, stationY(station, y)) - station.base,
+    slopeAt: (y) => curveSlope(station.curve, stationY(station, y)),
+  };
+}
+
 // ---------------------------------------------------------------------------------------------------
 // Validation
 
@@ -437,32 +459,33 @@ function curveSlope(curve: Curve, y: number): number {
  * The curve a station's deck follows, the y to read it at (clamped into the beam within tolerance) and
  * the base to subtract so that the station's beam ends are at height 0.
  */
-function stationDeck(
-  camber: Camber,
-  y: number,
-  stationHalfBeamMm: number,
-  referenceHalfBeamMm: number,
-  tol: number,
-): { curve: Curve; y: number; base: number } {
+/** The deck curve of one station, checked once: the pattern curve, where the station's beam ends on it, and the height there. */
+interface StationCurve {
+  curve: Curve;
+  /** Half-beam (mm) of the station, clamped to the pattern for one-pattern. */
+  halfBeamMm: number;
+  /** Height of the curve at the station's beam ends (0 for scaled), subtracted so the ends sit at 0. */
+  base: number;
+  /** The station's half-beam as given, for the outside-the-beam check. */
+  givenHalfBeamMm: number;
+  tol: number;
+}
+
+/**
+ * The station's curve, everything checked. With `y` (a single height or slope asked for) the half-breadth
+ * is checked with the rest and before the pattern's width, in the order the errors have always come.
+ */
+function stationCurve(camber: Camber, stationHalfBeamMm: number, referenceHalfBeamMm: number, tol: number, y?: number): StationCurve {
   throwIfAny([
     ...camberIssues(camber),
     ...finiteNonNegative(stationHalfBeamMm, 'stationHalfBeamMm', "the station's half-beam"),
     ...finitePositive(referenceHalfBeamMm, 'referenceHalfBeamMm', "the camber pattern's half-beam"),
-    ...(Number.isFinite(y) ? [] : [{ code: 'camber-not-finite', message: `the half-breadth must be a finite number, found ${y}`, field: 'y', value: y }]),
+    ...(y === undefined || Number.isFinite(y) ? [] : [yNotFinite(y)]),
   ]);
-  if (Math.abs(y) > stationHalfBeamMm + tol) {
-    throw issue(
-      'camber-outside-beam',
-      `half-breadth ${n(y)} mm is outside the deck at this station, whose half-beam is ${n(stationHalfBeamMm)} mm`,
-      'y',
-      y,
-    );
-  }
-  let bs = stationHalfBeamMm;
-  const yIn = Math.max(-bs, Math.min(bs, y));
-
+  if (y !== undefined) outsideBeamCheck(y, stationHalfBeamMm, tol);
+  const bs = stationHalfBeamMm;
   if (camber.convention === 'scaled') {
-    return { curve: makeCurve(camber, camberCrownMm(camber, 2 * bs, tol), bs), y: yIn, base: 0 };
+    return { curve: makeCurve(camber, camberCrownMm(camber, 2 * bs, tol), bs), halfBeamMm: bs, base: 0, givenHalfBeamMm: bs, tol };
   }
 
   // A fair sheer bulges a few hundredths of a millimetre past its widest station between stations; a
@@ -478,7 +501,35 @@ function stationDeck(
       bs,
     );
   }
-  bs = Math.min(bs, referenceHalfBeamMm);
+  const clamped = Math.min(bs, referenceHalfBeamMm);
   const reference = makeCurve(camber, camberCrownMm(camber, 2 * referenceHalfBeamMm, tol), referenceHalfBeamMm);
-  return { curve: reference, y: Math.max(-bs, Math.min(bs, yIn)), base: curveHeight(reference, bs) };
+  return { curve: reference, halfBeamMm: clamped, base: curveHeight(reference, clamped), givenHalfBeamMm: bs, tol };
+}
+
+const yNotFinite = (y: number): GeometryIssue => ({ code: 'camber-not-finite', message: `the half-breadth must be a finite number, found ${y}`, field: 'y', value: y });
+
+function outsideBeamCheck(y: number, stationHalfBeamMm: number, tol: number): void {
+  if (Math.abs(y) > stationHalfBeamMm + tol) {
+    throw issue('camber-outside-beam', `half-breadth ${n(y)} mm is outside the deck at this station, whose half-beam is ${n(stationHalfBeamMm)} mm`, 'y', y);
+  }
+}
+
+/** Where half-breadth `y` (mm) falls on the station's curve: checked against the beam, then clamped to it. */
+function stationY(station: StationCurve, y: number): number {
+  if (!Number.isFinite(y)) throwIfAny([yNotFinite(y)]);
+  outsideBeamCheck(y, station.givenHalfBeamMm, station.tol);
+  const bs = station.halfBeamMm;
+  return Math.max(-bs, Math.min(bs, y));
+}
+
+function stationDeck(
+  camber: Camber,
+  y: number,
+  stationHalfBeamMm: number,
+  referenceHalfBeamMm: number,
+  tol: number,
+): { curve: Curve; y: number; base: number } {
+  const station = stationCurve(camber, stationHalfBeamMm, referenceHalfBeamMm, tol, y);
+  const bs = station.halfBeamMm;
+  return { curve: station.curve, y: Math.max(-bs, Math.min(bs, y)), base: station.base };
 }

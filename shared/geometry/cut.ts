@@ -1,3 +1,4 @@
+import { vectorLength } from './vector';
 import { type Shape, polygonBounds, polygonSignedArea, shapeBoolean } from './polygon';
 import type { SectionPoint } from './types';
 
@@ -22,6 +23,47 @@ interface Crossing {
   point: SectionPoint;
 }
 
+/**
+ * A loop's edges in runs of `LOOP_BLOCK` with the box of each run, so that a cutter, a few millimetres
+ * across, skips the runs of a 400-point loop it cannot reach instead of testing every edge (a frame's nine
+ * cutters tested every edge of every face twice over: the largest part of cutting). Block b holds edges
+ * b * LOOP_BLOCK up to the next block, edge i running from point i to i + 1 (the last one back to point 0).
+ */
+interface IndexedLoop {
+  loop: readonly SectionPoint[];
+  /** minY, maxY, minZ, maxZ of each block. */
+  boxes: Float64Array;
+}
+
+/** Edges per block of an `IndexedLoop`. */
+const LOOP_BLOCK = 16;
+
+function indexedLoop(loop: readonly SectionPoint[]): IndexedLoop {
+  const n = loop.length;
+  const blocks = Math.ceil(n / LOOP_BLOCK);
+  const boxes = new Float64Array(4 * blocks);
+  for (let b = 0; b < blocks; b++) {
+    let minY = Infinity;
+    let maxY = -Infinity;
+    let minZ = Infinity;
+    let maxZ = -Infinity;
+    // The block's edges end at the first point of the next block (or back at point 0).
+    for (let i = b * LOOP_BLOCK, end = Math.min(n, (b + 1) * LOOP_BLOCK); i <= end; i++) {
+      const p = loop[i < n ? i : 0]!;
+      if (p.y < minY) minY = p.y;
+      if (p.y > maxY) maxY = p.y;
+      if (p.z < minZ) minZ = p.z;
+      if (p.z > maxZ) maxZ = p.z;
+    }
+    boxes[4 * b] = minY;
+    boxes[4 * b + 1] = maxY;
+    boxes[4 * b + 2] = minZ;
+    boxes[4 * b + 3] = maxZ;
+  }
+  return { loop, boxes };
+}
+
+/** Even-odd test of p against the loop (a ray toward +y). */
 const inside = (loop: readonly SectionPoint[], p: SectionPoint): boolean => {
   let c = false;
   for (let i = 0, j = loop.length - 1; i < loop.length; j = i++) {
@@ -32,37 +74,62 @@ const inside = (loop: readonly SectionPoint[], p: SectionPoint): boolean => {
   return c;
 };
 
+/**
+ * `inside` on an indexed loop, the same answer: an edge counts only when p.z lies between its ends' heights
+ * (one above p.z, one not), which no edge of a block wholly above p.z, or wholly at or below it, does.
+ */
+function insideIndexed(il: IndexedLoop, p: SectionPoint): boolean {
+  const loop = il.loop;
+  const n = loop.length;
+  let c = false;
+  for (let blk = 0; 4 * blk < il.boxes.length; blk++) {
+    if (il.boxes[4 * blk + 2]! > p.z || il.boxes[4 * blk + 3]! <= p.z) continue;
+    for (let e = blk * LOOP_BLOCK, end = Math.min(n, (blk + 1) * LOOP_BLOCK); e < end; e++) {
+      // Edge e joins point e and e + 1: the same pair as `inside` takes (i, j = i - 1) for i = e + 1.
+      const a = loop[(e + 1) % n]!;
+      const b = loop[e]!;
+      if (a.z > p.z !== b.z > p.z && p.y < ((b.y - a.y) * (p.z - a.z)) / (b.z - a.z) + a.y) c = !c;
+    }
+  }
+  return c;
+}
+
 type Box = { minY: number; maxY: number; minZ: number; maxZ: number };
 const boxesMeet = (a: Box, b: Box): boolean => a.minY <= b.maxY && b.minY <= a.maxY && a.minZ <= b.maxZ && b.minZ <= a.maxZ;
 
 /** Where the loop's edges cross the cutter's (each crossing counted once: fractions in [0, 1) on both). */
-function crossings(loop: readonly SectionPoint[], cutter: readonly SectionPoint[], box: Box): Crossing[] | null {
+function crossings(il: IndexedLoop, cutter: readonly SectionPoint[], box: Box): Crossing[] | null {
   const out: Crossing[] = [];
+  const loop = il.loop;
   const n = loop.length;
   const m = cutter.length;
-  for (let i = 0; i < n; i++) {
-    const a = loop[i]!;
-    const b = loop[(i + 1) % n]!;
-    if (Math.max(a.y, b.y) < box.minY || Math.min(a.y, b.y) > box.maxY || Math.max(a.z, b.z) < box.minZ || Math.min(a.z, b.z) > box.maxZ) continue;
-    const ry = b.y - a.y;
-    const rz = b.z - a.z;
-    for (let k = 0; k < m; k++) {
-      const c = cutter[k]!;
-      const d = cutter[(k + 1) % m]!;
-      const qy = d.y - c.y;
-      const qz = d.z - c.z;
-      const den = ry * qz - rz * qy;
-      if (Math.abs(den) < 1e-15) {
-        // Parallel: only a problem when they overlap (a cutter edge lying on the loop's edge): not a simple bite.
-        const cross = (c.y - a.y) * rz - (c.z - a.z) * ry;
-        if (Math.abs(cross) < 1e-12 * Math.max(1, Math.hypot(ry, rz))) return null;
-        continue;
+  for (let blk = 0; 4 * blk < il.boxes.length; blk++) {
+    const bb = il.boxes;
+    if (bb[4 * blk + 1]! < box.minY || bb[4 * blk]! > box.maxY || bb[4 * blk + 3]! < box.minZ || bb[4 * blk + 2]! > box.maxZ) continue;
+    for (let i = blk * LOOP_BLOCK, end = Math.min(n, (blk + 1) * LOOP_BLOCK); i < end; i++) {
+      const a = loop[i]!;
+      const b = loop[(i + 1) % n]!;
+      if (Math.max(a.y, b.y) < box.minY || Math.min(a.y, b.y) > box.maxY || Math.max(a.z, b.z) < box.minZ || Math.min(a.z, b.z) > box.maxZ) continue;
+      const ry = b.y - a.y;
+      const rz = b.z - a.z;
+      for (let k = 0; k < m; k++) {
+        const c = cutter[k]!;
+        const d = cutter[(k + 1) % m]!;
+        const qy = d.y - c.y;
+        const qz = d.z - c.z;
+        const den = ry * qz - rz * qy;
+        if (Math.abs(den) < 1e-15) {
+          // Parallel: only a problem when they overlap (a cutter edge lying on the loop's edge): not a simple bite.
+          const cross = (c.y - a.y) * rz - (c.z - a.z) * ry;
+          if (Math.abs(cross) < 1e-12 * Math.max(1, vectorLength(ry, rz))) return null;
+          continue;
+        }
+        const wy = c.y - a.y;
+        const wz = c.z - a.z;
+        const s = (wy * qz - wz * qy) / den;
+        const u = (wy * rz - wz * ry) / den;
+        if (s >= 0 && s < 1 && u >= 0 && u < 1) out.push({ i, s, k, u, point: { y: a.y + s * ry, z: a.z + s * rz } });
       }
-      const wy = c.y - a.y;
-      const wz = c.z - a.z;
-      const s = (wy * qz - wz * qy) / den;
-      const u = (wy * rz - wz * ry) / den;
-      if (s >= 0 && s < 1 && u >= 0 && u < 1) out.push({ i, s, k, u, point: { y: a.y + s * ry, z: a.z + s * rz } });
     }
   }
   return out;
@@ -150,6 +217,9 @@ export function cutShapes(regions: readonly Shape[], cutters: readonly SectionPo
   }
   const out: Shape[] = regions.map((r) => ({ outer: r.outer, holes: [...r.holes] }));
   const outerBoxes = out.map((r) => polygonBounds(r.outer)!);
+  // Indexed once for all the cutters (holes as given: a cutter that reaches one goes to clipper).
+  const outers = regions.map((r) => indexedLoop(r.outer));
+  const holes = regions.map((r) => r.holes.map(indexedLoop));
   const bites: Bite[][] = out.map(() => []);
   for (let c = 0; c < cutters.length; c++) {
     const cutter = cutters[c]!;
@@ -158,14 +228,14 @@ export function cutShapes(regions: readonly Shape[], cutters: readonly SectionPo
       const r = out[ri]!;
       if (!boxesMeet(outerBoxes[ri]!, box)) continue;
       // A cutter that reaches a hole (crosses it, or lies in it) needs a real boolean.
-      for (const h of regions[ri]!.holes) {
+      for (const h of holes[ri]!) {
         const xh = crossings(h, cutter, box);
-        if (xh === null || xh.length > 0 || inside(h, cutter[0]!)) return clipped(regions, cutters);
+        if (xh === null || xh.length > 0 || insideIndexed(h, cutter[0]!)) return clipped(regions, cutters);
       }
-      const x = crossings(r.outer, cutter, box);
+      const x = crossings(outers[ri]!, cutter, box);
       if (x === null) return clipped(regions, cutters);
       if (x.length === 0) {
-        if (inside(r.outer, cutter[0]!)) {
+        if (insideIndexed(outers[ri]!, cutter[0]!)) {
           // Wholly inside the material: a hole (clockwise).
           r.holes.push([...cutter].reverse());
           break;
@@ -190,7 +260,7 @@ export function cutShapes(regions: readonly Shape[], cutters: readonly SectionPo
 
 /** Whether two loops overlap: their edges cross, or one lies inside the other. */
 function loopsMeet(a: readonly SectionPoint[], b: readonly SectionPoint[], bBox: Box): boolean {
-  const x = crossings(a, b, bBox);
+  const x = crossings(indexedLoop(a), b, bBox);
   return x === null || x.length > 0 || inside(a, b[0]!) || inside(b, a[0]!);
 }
 

@@ -1,4 +1,4 @@
-import { camberHeightAt, camberReferenceHalfBeamMm, camberSlopeAt } from './camber';
+import { camberAtStation, camberReferenceHalfBeamMm, type StationCamber } from './camber';
 import { type EdgePoint, edgeSkinMm } from './edge';
 import type { BuiltHull } from './hull';
 import { linePointAt, lineReaches } from './lines';
@@ -51,23 +51,38 @@ export function deckLineAt(hull: BuiltHull, section: Section, clearanceMm: numbe
   // beams read here (a sampled maximum can fall a hair short of the true one).
   const widest = Math.max(hull.maxSheerHalfBeamMm! - inboard, here.hb, fore?.hb ?? 0, aft?.hb ?? 0, 1e-6);
   const ref = camberReferenceHalfBeamMm(deck.camber, widest);
+  // Each of the three stations' camber checked and built once, then sampled at every half-breadth.
+  const cambers = new Map<{ hb: number }, StationCamber>();
+  const camberOf = (s: { hb: number }): StationCamber => {
+    let c = cambers.get(s);
+    if (!c) cambers.set(s, (c = camberAtStation(deck.camber, s.hb, ref)));
+    return c;
+  };
   const heightOf = (s: { zs: number; hb: number }, y: number): number => {
     if (s.hb <= 0) return s.zs;
-    if (y <= s.hb) return s.zs + camberHeightAt(deck.camber, y, s.hb, ref);
+    if (y <= s.hb) return s.zs + camberOf(s).heightAt(y);
     // Outboard of the beam (inside the clamp): the curve's end tangent carries on to the side.
-    return s.zs + camberSlopeAt(deck.camber, s.hb, s.hb, ref) * (y - s.hb);
+    return s.zs + camberOf(s).slopeAt(s.hb) * (y - s.hb);
   };
-  const slopeOf = (s: { hb: number }, y: number): number => (s.hb <= 0 ? 0 : camberSlopeAt(deck.camber, Math.min(y, s.hb), s.hb, ref));
+  const slopeOf = (s: { hb: number }, y: number): number => (s.hb <= 0 ? 0 : camberOf(s).slopeAt(Math.min(y, s.hb)));
 
   // Reach a little past the sheer so the underside is sure to meet the hull edge.
   const yEnd = here.ys * 1.02 + 5;
-  const ys = deckSamples((y) => heightOf(here, y), 0, yEnd, toleranceMm);
+  // The sampling has the height at every sample already: kept, so each is worked out once (every camber
+  // height validates the camber, and the deck line is drawn on every face of every part).
+  const heights = new Map<number, number>();
+  const hereAt = (y: number): number => {
+    let z = heights.get(y);
+    if (z === undefined) heights.set(y, (z = heightOf(here, y)));
+    return z;
+  };
+  const ys = deckSamples(hereAt, 0, yEnd, toleranceMm);
   const t = deck.thicknessMm + clearanceMm;
   const top: EdgePoint[] = [];
   const underside: EdgePoint[] = [];
   let girth = 0;
   ys.forEach((y, k) => {
-    const z = heightOf(here, y);
+    const z = hereAt(y);
     const m = slopeOf(here, y);
     const len = Math.sqrt(1 + m * m);
     const ny = -m / len;
@@ -75,10 +90,11 @@ export function deckLineAt(hull: BuiltHull, section: Section, clearanceMm: numbe
     const dZdx = fore && aft && dx > 0 ? (heightOf(fore, y) - heightOf(aft, y)) / dx : 0;
     const rate = dZdx * nz;
     const setIn = t * Math.sqrt(1 + rate * rate);
-    if (k > 0) girth += Math.sqrt((y - ys[k - 1]!) ** 2 + (z - heightOf(here, ys[k - 1]!)) ** 2);
-    const common = { ny, nz, rate, bevel: Math.atan(Math.abs(rate)), girthMm: girth, edge: 'deck' as const, corner: false };
-    top.push({ y, z, setInMm: 0, ...common });
-    underside.push({ y: y - ny * setIn, z: z - nz * setIn, setInMm: setIn, ...common });
+    if (k > 0) girth += Math.sqrt((y - ys[k - 1]!) ** 2 + (z - hereAt(ys[k - 1]!)) ** 2);
+    const bevel = Math.atan(Math.abs(rate));
+    // Literals, not a shared part spread into each (V8's slow path for spreads).
+    top.push({ y, z, setInMm: 0, ny, nz, rate, bevel, girthMm: girth, edge: 'deck', corner: false });
+    underside.push({ y: y - ny * setIn, z: z - nz * setIn, setInMm: setIn, ny, nz, rate, bevel, girthMm: girth, edge: 'deck', corner: false });
   });
   // Keep the underside starting on the centreline (the normal there is vertical, but be exact).
   underside[0]!.y = 0;

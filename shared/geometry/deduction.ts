@@ -1,5 +1,5 @@
 import { deckLineAt } from './deck';
-import { type EdgePoint, edgeSkinMm } from './edge';
+import { type EdgePoint, edgePointMoved, edgeSkinMm } from './edge';
 import type { BuiltHull } from './hull';
 import { polylineLinesMeet, polylineLoopsTrim, polylineSegmentsCross, polylineTailHeadCross } from './polyline';
 import { type Section, type SectionOptions, type SectionVertex, sectionAt } from './section';
@@ -120,9 +120,9 @@ function joinCorner(a: EdgePoint[], b: EdgePoint[], mitreMm: number): EdgePoint[
   if (meet && meet.s >= 0 && meet.u >= 0 && meet.s <= mitreMm && meet.u <= mitreMm) {
     const y = ea.y - ea.nz * meet.s;
     const z = ea.z + ea.ny * meet.s;
-    return [...a.slice(0, -1), { ...ea, y, z, corner: true }, { ...sb, y, z, corner: true }, ...b.slice(1)];
+    return [...a.slice(0, -1), edgePointMoved(ea, y, z, true), edgePointMoved(sb, y, z, true), ...b.slice(1)];
   }
-  return [...a.slice(0, -1), { ...ea, corner: true }, { ...sb, corner: true }, ...b.slice(1)];
+  return [...a.slice(0, -1), edgePointMoved(ea, ea.y, ea.z, true), edgePointMoved(sb, sb.y, sb.z, true), ...b.slice(1)];
 }
 
 /** Where the section starts on the centreline, make the edge start there too (a V keel's offset crosses it). */
@@ -147,7 +147,7 @@ function startAtCentreline(edge: EdgePoint[], section: Section): EdgePoint[] {
   const ty = -first.nz;
   if (Math.abs(ty) < 1e-12) return edge;
   const s = -first.y / ty;
-  return [{ ...first, y: 0, z: first.z + first.ny * s }, ...edge];
+  return [edgePointMoved(first, 0, first.z + first.ny * s, first.corner), ...edge];
 }
 
 /**
@@ -177,12 +177,12 @@ function closeOutline(edge: EdgePoint[], deck: EdgePoint[] | null, sheerZ: numbe
     const b = topOut[j + 1]!;
     const meet = polylineLinesMeet(last, { y: ty, z: tz }, a, { y: b.y - a.y, z: b.z - a.z });
     if (meet && meet.s >= 0 && meet.u >= 0 && meet.u <= 1) {
-      const ext = { ...last, y: last.y + ty * meet.s, z: last.z + tz * meet.s, corner: false };
+      const ext = edgePointMoved(last, last.y + ty * meet.s, last.z + tz * meet.s, false);
       return [...out, ...edge, ...cornerPair(last, ext, 1, a, b, meet.u), ...topOut.slice(j + 1)];
     }
   }
   // Nothing meets (a deck line clear of the side): join the two ends straight.
-  return [...out, ...edge, { ...topOut[0]!, corner: true }, ...topOut.slice(1)];
+  return [...out, ...edge, edgePointMoved(topOut[0]!, topOut[0]!.y, topOut[0]!.z, true), ...topOut.slice(1)];
 }
 
 /** The top corner, once as the end of the hull edge and once as the start of the top line. */

@@ -103,21 +103,35 @@ export function stationFaceAt(hull: BuiltHull, part: StationPart, x: number, ctx
   const runs = outlineContactRuns(half);
   const hullEdge = hullEdgeOpen(half);
   const openEdge: GirthEdge = { points: hullEdge, closed: false };
-  const base = { x, section: section!, half, hullEdge, ring: null as RingSpec | null, contactSides: 'both' as StationFace['contactSides'] };
+  // Built as one literal: spreading a base and overriding its keys takes V8's slow path (outline.ts), and
+  // this runs on every face.
+  type Own = Pick<StationFace, 'regions' | 'girthEdges' | 'contact' | 'jointLengthMm'> & Partial<Pick<StationFace, 'hullEdge' | 'ring' | 'contactSides'>>;
+  const faceOf = (f: Own): StationFace => ({
+    x,
+    section: section!,
+    half,
+    hullEdge: f.hullEdge ?? hullEdge,
+    ring: f.ring ?? null,
+    contactSides: f.contactSides ?? 'both',
+    regions: f.regions,
+    girthEdges: f.girthEdges,
+    contact: f.contact,
+    jointLengthMm: f.jointLengthMm,
+  });
   const bothSides = (k: number): number => 2 * k;
   switch (part.kind) {
     case 'bulkhead':
     case 'mould': {
       const outer = loopMirrored(half);
       const joint = part.kind === 'mould' ? 0 : bothSides(outlineEdgeLength(half, ['hull', 'deck']));
-      return { ...base, regions: [{ outer, holes: [] }], girthEdges: [openEdge], contact: contactOf([runs.hull, runs.deck]), jointLengthMm: joint };
+      return faceOf({ regions: [{ outer, holes: [] }], girthEdges: [openEdge], contact: contactOf([runs.hull, runs.deck]), jointLengthMm: joint });
     }
     case 'ring-frame': {
       const spec = ringSpecOf(part, ctx.chineGirthMm);
       const region = ringRegion(half, spec, ctx.chordToleranceMm);
       const girthEdge: GirthEdge = spec.top === 'deck' ? { points: region.outer, closed: true } : openEdge;
       const kinds: ('hull' | 'deck')[] = spec.top === 'deck' ? ['hull', 'deck'] : ['hull'];
-      return { ...base, ring: spec, regions: [region], girthEdges: [girthEdge], contact: contactOf(spec.top === 'deck' ? [runs.hull, runs.deck] : [runs.hull]), jointLengthMm: bothSides(outlineEdgeLength(half, kinds)) };
+      return faceOf({ ring: spec, regions: [region], girthEdges: [girthEdge], contact: contactOf(spec.top === 'deck' ? [runs.hull, runs.deck] : [runs.hull]), jointLengthMm: bothSides(outlineEdgeLength(half, kinds)) });
     }
     case 'floor':
     case 'partial-bulkhead': {
@@ -138,7 +152,7 @@ export function stationFaceAt(hull: BuiltHull, part: StationPart, x: number, ctx
       const edge = edgeRunsBelow(half.filter((p) => p.edge === 'hull'), (p) => p.z, part.topZ)[0] ?? runs.hull;
       const edgePts = edge.map((p) => ({ y: p.y, z: p.z }));
       const open = [...edgePts.filter((p) => p.y > 1e-9).map((p) => ({ y: -p.y, z: p.z })).reverse(), ...edgePts];
-      return { ...base, regions, girthEdges: regions.map(() => ({ points: open, closed: false })), contact, jointLengthMm: joint };
+      return faceOf({ regions, girthEdges: regions.map(() => ({ points: open, closed: false })), contact, jointLengthMm: joint });
     }
     case 'deck-beam':
     case 'half-beam': {
@@ -152,7 +166,7 @@ export function stationFaceAt(hull: BuiltHull, part: StationPart, x: number, ctx
       const sides = part.kind === 'half-beam' ? (part.sides === 'both' ? ['starboard', 'port'] : [part.sides]) : ['starboard'];
       const girthEdges: GirthEdge[] = sides.map((s) => ({ points: s === 'port' ? beam.topEdge.map((p) => ({ y: -p.y, z: p.z })).reverse() : beam.topEdge, closed: false }));
       const contactSides = part.kind === 'half-beam' ? part.sides : 'both';
-      return { ...base, regions: beam.regions, girthEdges, hullEdge: beam.topEdge, contact: contactOf([beam.deckEdge, beam.endEdge]), contactSides, jointLengthMm: joint };
+      return faceOf({ regions: beam.regions, girthEdges, hullEdge: beam.topEdge, contact: contactOf([beam.deckEdge, beam.endEdge]), contactSides, jointLengthMm: joint });
     }
   }
 }

@@ -120,6 +120,16 @@ function segmentMeetsLoop(a: SectionPoint, b: SectionPoint, loop: readonly Secti
 }
 
 const region = (s: Shape): PartRegion => ({ outer: s.outer, holes: s.holes });
+
+/** The box of the regions' outer loops, or null when they have no points (one loop at a time: flatMap copies every point). */
+function regionsBounds(regions: readonly PartRegion[]): Bounds | null {
+  let out: Bounds | null = null;
+  for (const r of regions) {
+    const b = polygonBounds(r.outer);
+    if (b) out = out ? { minY: Math.min(out.minY, b.minY), minZ: Math.min(out.minZ, b.minZ), maxY: Math.max(out.maxY, b.maxY), maxZ: Math.max(out.maxZ, b.maxZ) } : b;
+  }
+  return out;
+}
 const areaOf = (shapes: readonly Shape[]): number => shapes.reduce((a, s) => a + polygonArea(s.outer) - s.holes.reduce((h, l) => h + polygonArea(l), 0), 0);
 
 /**
@@ -188,7 +198,7 @@ export function partOfFaces(part: Part, pf: PartFaces, ctx: PartContext): PartGe
     warnings.push({ code: 'bevels-mixed', message: `the edge has ${summary.under} under and ${summary.standing} standing bevel marks: the standing stretches cannot be cut from the marked face alone`, field: 'markedFace', path: ['markedFace'], value: pf.markedFace });
   }
   const markedRegions = marked.regions.map(region);
-  const bounds: Bounds = polygonBounds(markedRegions.flatMap((r) => r.outer)) ?? { minY: 0, maxY: 0, minZ: 0, maxZ: 0 };
+  const bounds: Bounds = regionsBounds(markedRegions) ?? { minY: 0, maxY: 0, minZ: 0, maxZ: 0 };
   const notches: NotchGeometry[] = pf.faces[0]!.notches.map((n) => ({ longitudinalId: n.longitudinalId, name: n.name, side: n.side, centre: n.centre, widthMm: n.widthMm, depthMm: n.depthMm, crossingAngleRad: n.crossingAngleRad, against: n.against }));
   const marks = templateMarksOf({
     regions: markedRegions,

@@ -35,7 +35,10 @@ function partIssueOf(part: Part, issue: GeometryIssue): PartIssue {
   const path = field === '' ? [] : field.split('.').map((k) => (/^\d+$/.test(k) ? Number(k) : k));
   const stationId = 'stationId' in part ? part.stationId : undefined;
   const message = issue.message.startsWith('part "') ? issue.message : `${label(part)}: ${issue.message}`;
-  return { ...issue, message, partId: part.id, path, ...(stationId !== undefined && issue.stationId === undefined ? { stationId } : {}) };
+  // Object.assign, not a spread that adds keys: V8 takes its slow path there, several microseconds an issue.
+  const out: PartIssue = Object.assign({}, issue, { message, partId: part.id, path });
+  if (stationId !== undefined && issue.stationId === undefined) out.stationId = stationId;
+  return out;
 }
 
 /** The thinnest skin (mm) the hull's parts are bonded to, or null when none is given. */

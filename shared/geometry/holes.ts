@@ -1,5 +1,6 @@
+import { vectorLength } from './vector';
 import type { Limber, Opening } from './part-schema';
-import { type GirthEdge, girthPoint } from './pieces';
+import { type GirthEdge, girthPoints } from './pieces';
 import { CHORD_TOLERANCE_MM, type SectionPoint } from './types';
 
 /**
@@ -78,10 +79,10 @@ export function roundedRectLoop(centre: SectionPoint, widthMm: number, heightMm:
     const arc = arcPoints({ y: centre.y + cy, z: centre.z + cz }, r, a0, Math.PI / 2, toleranceMm);
     for (const p of arc) {
       const q = out[out.length - 1];
-      if (!q || Math.hypot(q.y - p.y, q.z - p.z) > 1e-9) out.push(p);
+      if (!q || vectorLength(q.y - p.y, q.z - p.z) > 1e-9) out.push(p);
     }
   }
-  if (Math.hypot(out[0]!.y - out[out.length - 1]!.y, out[0]!.z - out[out.length - 1]!.z) <= 1e-9) out.pop();
+  if (vectorLength(out[0]!.y - out[out.length - 1]!.y, out[0]!.z - out[out.length - 1]!.z) <= 1e-9) out.pop();
   return out;
 }
 
@@ -129,10 +130,11 @@ export interface LimberPlace {
  */
 export function limberPlaces(limber: Limber, edge: GirthEdge, toleranceMm: number = CHORD_TOLERANCE_MM): (LimberPlace | null)[] {
   const sides: ('port' | 'starboard')[] = limber.sides === 'both' ? ['port', 'starboard'] : [limber.sides];
-  return sides.map((side) => {
-    const girthMm = side === 'port' ? -limber.girthMm : limber.girthMm;
-    const at = girthPoint(edge, girthMm);
-    if (at === null) return null;
-    return { side, girthMm, centre: at.point, radiusMm: limber.radiusMm, loop: circleLoop(at.point, limber.radiusMm, toleranceMm) };
+  const girths = sides.map((side) => (side === 'port' ? -limber.girthMm : limber.girthMm));
+  const at = girthPoints(edge, girths);
+  return sides.map((side, k) => {
+    const p = at[k]!;
+    if (p === null) return null;
+    return { side, girthMm: girths[k]!, centre: p.point, radiusMm: limber.radiusMm, loop: circleLoop(p.point, limber.radiusMm, toleranceMm) };
   });
 }

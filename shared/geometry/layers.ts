@@ -1,3 +1,4 @@
+import { vectorLength } from './vector';
 import type { FrameFace } from './bevel';
 import type { EdgePoint } from './edge';
 import type { LayerPiecesGeometry, PartRegion } from './frame-types';
@@ -42,7 +43,7 @@ export function outlineGrowth(half: readonly EdgePoint[]): number {
     const a = half[i - 1]!;
     const b = half[i]!;
     if (a.edge === 'closure' || b.edge === 'closure') continue;
-    sum += ((a.rate + b.rate) / 2) * Math.hypot(b.y - a.y, b.z - a.z);
+    sum += ((a.rate + b.rate) / 2) * vectorLength(b.y - a.y, b.z - a.z);
   }
   return sum;
 }

@@ -1,3 +1,4 @@
+import { vectorLength } from './vector';
 import type { DeckLine } from './deck';
 import { edgeSkinMm } from './edge';
 import type { BuiltHull } from './hull';
@@ -84,7 +85,7 @@ export function longitudinalPlaceAt(hull: BuiltHull, section: Section, deck: Dec
     const b = top[k + 1]!;
     const ny = a.ny + f * (b.ny - a.ny);
     const nz = a.nz + f * (b.nz - a.nz);
-    const nl = Math.hypot(ny, nz) || 1;
+    const nl = vectorLength(ny, nz) || 1;
     return {
       x: section.x,
       against: 'deck',
@@ -179,12 +180,12 @@ export function notchesOfPlace(lg: Longitudinal, place: LongitudinalPlace, cross
   // Counter-clockwise (t along increasing girth, n outward, the inside to the left of t).
   const loop = [pt(-w / 2, outerMm), pt(w / 2, outerMm), pt(w / 2, floorMm), pt(-w / 2, floorMm)];
   const centre = pt(0, place.coverMm * k);
-  const base = { longitudinalId: lg.id, name: lg.name, against: place.against, widthMm: w, depthMm, floorMm, crossingAngleRad };
+  // Built field by field: spreading a shared base into each takes V8's slow path (outline.ts, edgePointMirrored).
+  const cut = (side: NotchCut['side'], c: SectionPoint, l: SectionPoint[]): NotchCut => ({ longitudinalId: lg.id, name: lg.name, against: place.against, widthMm: w, depthMm, floorMm, crossingAngleRad, side, centre: c, loop: l });
   const onCl = lg.sides === 'centreline';
-  const star: NotchCut = { ...base, side: onCl ? 'centreline' : 'starboard', centre, loop };
+  const star = cut(onCl ? 'centreline' : 'starboard', centre, loop);
   if (onCl) return [star];
-  const port: NotchCut = { ...base, side: 'port', centre: { y: -centre.y, z: centre.z }, loop: loop.map((p) => ({ y: -p.y, z: p.z })).reverse() };
-  return [star, port];
+  return [star, cut('port', { y: -centre.y, z: centre.z }, loop.map((p) => ({ y: -p.y, z: p.z })).reverse())];
 }
 
 /** Whether a longitudinal runs through x (mm): within its fromX and toX (null: to the end of the hull). */

@@ -1,3 +1,4 @@
+import { vectorLength } from './vector';
 import type { EdgePoint } from './edge';
 import type { SectionPoint } from './types';
 
@@ -69,7 +70,7 @@ function runNormals(points: readonly EdgePoint[], kind: RunKind): SectionPoint[]
   // The half outline runs counter-clockwise: outward is to the right of travel.
   const a = points[0]!;
   const b = points[points.length - 1]!;
-  const len = Math.hypot(b.y - a.y, b.z - a.z) || 1;
+  const len = vectorLength(b.y - a.y, b.z - a.z) || 1;
   const n = { y: (b.z - a.z) / len, z: -(b.y - a.y) / len };
   return points.map(() => n);
 }
@@ -98,9 +99,10 @@ export function hullEdgeOpen(half: readonly EdgePoint[]): SectionPoint[] {
   half.forEach((p, i) => {
     if (p.edge === 'hull') last = i;
   });
-  const star = half.slice(0, last + 1).map((p) => ({ y: p.y, z: p.z }));
-  const port = star.filter((p) => p.y > OUTLINE_SAME_POINT_MM).map((p) => ({ y: -p.y, z: p.z })).reverse();
-  return [...port, ...star];
+  const out: SectionPoint[] = [];
+  for (let i = last; i >= 0; i--) if (half[i]!.y > OUTLINE_SAME_POINT_MM) out.push({ y: -half[i]!.y, z: half[i]!.z });
+  for (let i = 0; i <= last; i++) out.push({ y: half[i]!.y, z: half[i]!.z });
+  return out;
 }
 
 /** Length (mm) of the half outline's segments along an edge of `kind` (what a fillet runs along). */
@@ -109,7 +111,7 @@ export function outlineEdgeLength(half: readonly EdgePoint[], kinds: readonly Ru
   for (let i = 1; i < half.length; i++) {
     const a = half[i - 1]!;
     const b = half[i]!;
-    if (a.edge === b.edge && kinds.includes(a.edge)) sum += Math.hypot(b.y - a.y, b.z - a.z);
+    if (a.edge === b.edge && kinds.includes(a.edge)) sum += vectorLength(b.y - a.y, b.z - a.z);
   }
   return sum;
 }
@@ -127,7 +129,7 @@ export function edgePointMirrored(p: EdgePoint): EdgePoint {
 export function edgePointLerp(a: EdgePoint, b: EdgePoint, f: number): EdgePoint {
   const ny = a.ny + f * (b.ny - a.ny);
   const nz = a.nz + f * (b.nz - a.nz);
-  const nl = Math.hypot(ny, nz) || 1;
+  const nl = vectorLength(ny, nz) || 1;
   const rate = a.rate + f * (b.rate - a.rate);
   return {
     y: a.y + f * (b.y - a.y),

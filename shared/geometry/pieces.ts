@@ -57,8 +57,13 @@ const fail = (code: string, field: string, value: unknown, message: string): nev
   throw new GeometryInputError([{ code, message, field, value }]);
 };
 
-function girthOf(edge: GirthEdge): Girth {
+/** Refuses an edge girths cannot be measured along. */
+function girthEdgeChecked(edge: GirthEdge): void {
   if (edge.points.length < 2) fail('girth-edge', 'edge', edge.points.length, `a girth edge needs at least two points, found ${edge.points.length}`);
+}
+
+function girthOf(edge: GirthEdge): Girth {
+  girthEdgeChecked(edge);
   let pts = edge.closed ? polygonCounterClockwise(edge.points) : [...edge.points];
   if (!edge.closed && pts[0]!.y > pts[pts.length - 1]!.y) pts = pts.reverse();
   if (edge.closed) pts.push(pts[0]!);
@@ -86,13 +91,23 @@ function girthOf(edge: GirthEdge): Girth {
 
 /** The girth range of an edge (mm): [min, max] for an open edge, (-P/2, P/2] for a closed one, and its length. */
 export function girthRange(edge: GirthEdge): { minMm: number; maxMm: number; lengthMm: number; closed: boolean } {
-  const g = girthOf(edge);
+  return rangeOf(girthOf(edge));
+}
+
+function rangeOf(g: Girth): { minMm: number; maxMm: number; lengthMm: number; closed: boolean } {
   return g.closed ? { minMm: -g.total / 2, maxMm: g.total / 2, lengthMm: g.total, closed: true } : { minMm: -g.origin, maxMm: g.total - g.origin, lengthMm: g.total, closed: false };
 }
 
 /** The point at girth g (mm) and the unit normal into the layer there (to the left of the edge), or null off an open edge. */
 export function girthPoint(edge: GirthEdge, girthMm: number, toleranceMm: number = POINT_TOLERANCE_MM): { point: SectionPoint; inward: SectionPoint } | null {
   return pointOf(girthOf(edge), girthMm, toleranceMm);
+}
+
+/** `girthPoint` at each of several girths (mm) along one edge, its girths measured once. */
+export function girthPoints(edge: GirthEdge, girthsMm: readonly number[], toleranceMm: number = POINT_TOLERANCE_MM): ({ point: SectionPoint; inward: SectionPoint } | null)[] {
+  if (girthsMm.length === 0) return [];
+  const g = girthOf(edge);
+  return girthsMm.map((gm) => pointOf(g, gm, toleranceMm));
 }
 
 function pointOf(g: Girth, girthMm: number, tol: number): { point: SectionPoint; inward: SectionPoint } | null {
@@ -178,7 +193,11 @@ function knife(a: SectionPoint, b: SectionPoint, overrun: [number, number]): Sha
  *   `snapMm` of the edge.
  */
 export function piecesOfLayer(shape: Shape, edge: GirthEdge, girthsMm: readonly number[], snapMm: number = JOINT_SNAP_MM): { pieces: Shape[]; joints: Joint[] } {
-  const g = girthOf(edge);
+  return layerCutAlong(shape, girthOf(edge), girthsMm, snapMm);
+}
+
+/** `piecesOfLayer` on an edge whose girths are measured already. */
+function layerCutAlong(shape: Shape, g: Girth, girthsMm: readonly number[], snapMm: number): { pieces: Shape[]; joints: Joint[] } {
   const joints: Joint[] = [];
   const knives: Shape[] = [];
   for (const girthMm of girthsMm) {
@@ -219,10 +238,19 @@ function girthGap(a: number, b: number, period: number | null): number {
  *   are too close, or when a stated girth is off the edge.
  */
 export function piecesJointGirths(layers: readonly { edge: GirthEdge; joints: LayerJoints }[], minStaggerMm: number): number[][] {
-  const ranges = layers.map((l) => girthRange(l.edge));
+  const edges = layers.map((l) => girthOf(l.edge));
+  return jointGirthsAlong((i) => edges[i]!, layers, minStaggerMm);
+}
+
+/**
+ * `piecesJointGirths` with each layer's edge measured by `edgeAt(i)` (index for index with the layers), called
+ * only for a layer that has joints to place or check: a layer in one piece has none on either kind of edge.
+ */
+function jointGirthsAlong(edgeAt: (i: number) => Girth, layers: readonly { joints: LayerJoints }[], minStaggerMm: number): number[][] {
+  const rangeAt = (i: number): ReturnType<typeof rangeOf> => rangeOf(edgeAt(i));
   const known: (number[] | null)[] = layers.map((l, i) => {
     if (l.joints.by !== 'girth') return null;
-    const r = ranges[i]!;
+    const r = rangeAt(i);
     for (const gm of l.joints.girthsMm) {
       if (!r.closed && (gm < r.minMm - POINT_TOLERANCE_MM || gm > r.maxMm + POINT_TOLERANCE_MM)) {
         fail('joint-off-edge', `layers.${i}.joints.girthsMm`, gm, `layer ${i + 1}: a joint at girth ${gm} mm is off the edge, which runs from ${r.minMm.toFixed(1)} to ${r.maxMm.toFixed(1)} mm`);
@@ -236,8 +264,12 @@ export function piecesJointGirths(layers: readonly { edge: GirthEdge; joints: La
   };
   layers.forEach((l, i) => {
     if (l.joints.by === 'girth' || known[i] !== null) return;
-    const r = ranges[i]!;
     const n = l.joints.pieces;
+    if (n === 1) {
+      known[i] = [];
+      return;
+    }
+    const r = rangeAt(i);
     const base = r.closed ? (n < 2 ? [] : Array.from({ length: n }, (_, k) => -r.lengthMm / 2 + ((k + 0.5) * r.lengthMm) / n)) : Array.from({ length: n - 1 }, (_, k) => r.minMm + ((k + 1) * (r.maxMm - r.minMm)) / n);
     const neighbours = [known[i - 1], known[i + 1]].filter((x): x is number[] => Array.isArray(x)).flat();
     const period = r.closed ? r.lengthMm : null;
@@ -257,7 +289,9 @@ export function piecesJointGirths(layers: readonly { edge: GirthEdge; joints: La
   });
   const out = known.map((k) => k ?? []);
   for (let i = 0; i + 1 < out.length; i++) {
-    const hit = tooClose(out[i]!, out[i + 1]!, ranges[i]!.closed ? ranges[i]!.lengthMm : null);
+    if (out[i]!.length === 0 || out[i + 1]!.length === 0) continue;
+    const r = rangeAt(i);
+    const hit = tooClose(out[i]!, out[i + 1]!, r.closed ? r.lengthMm : null);
     if (hit) fail('joint-stagger', `layers.${i + 1}.joints`, hit, `layers ${i + 1} and ${i + 2} have joints at girths ${hit[0]} and ${hit[1]} mm, closer than the minimum stagger of ${minStaggerMm} mm`);
   }
   return out;
@@ -318,9 +352,14 @@ const rect = (y0: number, z0: number, y1: number, z1: number): Shape => ({ outer
  * `layers[k]` gives layer k's shape, the edge its girths run along and its joints (from the schema).
  */
 export function piecesOfLayers(layers: readonly { shape: Shape; edge: GirthEdge; joints: LayerJoints }[], jointing: Jointing): LayerPieces[] {
-  const girths = piecesJointGirths(layers, jointing.minStaggerMm);
+  // Each edge's girths measured at most once, for placing the joints and for cutting at them, and not at all
+  // for a layer with no joints (one piece): a frame's outline is hundreds of points.
+  for (const l of layers) girthEdgeChecked(l.edge);
+  const measured: Girth[] = [];
+  const edgeAt = (i: number): Girth => (measured[i] ??= girthOf(layers[i]!.edge));
+  const girths = jointGirthsAlong(edgeAt, layers, jointing.minStaggerMm);
   return layers.map((l, i) => {
-    const cut = piecesOfLayer(l.shape, l.edge, girths[i]!);
+    const cut = girths[i]!.length === 0 ? { pieces: [l.shape], joints: [] } : layerCutAlong(l.shape, edgeAt(i), girths[i]!, JOINT_SNAP_MM);
     const fitted = piecesFittingSheet(cut.pieces, jointing.sheet, jointing.buttBlockWidthMm);
     return { pieces: fitted.pieces, joints: cut.joints, buttJoints: fitted.buttJoints, buttBlocks: fitted.buttBlocks };
   });

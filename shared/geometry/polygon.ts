@@ -1,5 +1,6 @@
 // @ts-expect-error clipper-lib 6.4.2 publishes no type declarations; the few calls used are typed below.
 import ClipperLibUntyped from 'clipper-lib';
+import { vectorLength } from './vector';
 import { CHORD_TOLERANCE_MM, GeometryInputError, POINT_TOLERANCE_MM, type SectionPoint } from './types';
 
 /**
@@ -31,13 +32,19 @@ export const OFFSET_ARC_TOLERANCE_MM = CHORD_TOLERANCE_MM;
 
 /** Signed area (mm^2) by the shoelace formula: positive when counter-clockwise, 0 for fewer than 3 points. */
 export function polygonSignedArea(loop: Loop): number {
+  const n = loop.length;
+  if (n < 3) return 0;
+  // Edge by edge in the loop's order, the closing edge last (no modulo per point: this runs on every loop).
   let twice = 0;
-  for (let i = 0, n = loop.length; i < n; i++) {
-    const a = loop[i]!;
-    const b = loop[(i + 1) % n]!;
+  let a = loop[0]!;
+  for (let i = 1; i < n; i++) {
+    const b = loop[i]!;
     twice += a.y * b.z - b.y * a.z;
+    a = b;
   }
-  return loop.length < 3 ? 0 : twice / 2;
+  const b = loop[0]!;
+  twice += a.y * b.z - b.y * a.z;
+  return twice / 2;
 }
 
 /** Area (mm^2) enclosed by a loop, whatever its direction. */
@@ -51,7 +58,7 @@ export function polygonPerimeter(loop: Loop): number {
   for (let i = 0, n = loop.length; i < n && n > 1; i++) {
     const a = loop[i]!;
     const b = loop[(i + 1) % n]!;
-    sum += Math.hypot(b.y - a.y, b.z - a.z);
+    sum += vectorLength(b.y - a.y, b.z - a.z);
   }
   return sum;
 }
@@ -59,7 +66,7 @@ export function polygonPerimeter(loop: Loop): number {
 /** Length (mm) of an open polyline. */
 export function polylineLength(points: Loop): number {
   let sum = 0;
-  for (let i = 1; i < points.length; i++) sum += Math.hypot(points[i]!.y - points[i - 1]!.y, points[i]!.z - points[i - 1]!.z);
+  for (let i = 1; i < points.length; i++) sum += vectorLength(points[i]!.y - points[i - 1]!.y, points[i]!.z - points[i - 1]!.z);
   return sum;
 }
 
@@ -96,7 +103,7 @@ export function segmentDistance(p: SectionPoint, a: SectionPoint, b: SectionPoin
   const dz = b.z - a.z;
   const len2 = dy * dy + dz * dz;
   const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.y - a.y) * dy + (p.z - a.z) * dz) / len2));
-  return Math.hypot(p.y - (a.y + t * dy), p.z - (a.z + t * dz));
+  return vectorLength(p.y - (a.y + t * dy), p.z - (a.z + t * dz));
 }
 
 /**
@@ -104,7 +111,7 @@ export function segmentDistance(p: SectionPoint, a: SectionPoint, b: SectionPoin
  */
 export function polylineDistance(points: Loop, p: SectionPoint, closed = false): number | null {
   if (points.length === 0) return null;
-  if (points.length === 1) return Math.hypot(p.y - points[0]!.y, p.z - points[0]!.z);
+  if (points.length === 1) return vectorLength(p.y - points[0]!.y, p.z - points[0]!.z);
   let best = Infinity;
   const edges = closed ? points.length : points.length - 1;
   for (let i = 0; i < edges; i++) best = Math.min(best, segmentDistance(p, points[i]!, points[(i + 1) % points.length]!));
@@ -249,9 +256,9 @@ function dedupe(loop: Loop, tol: number): SectionPoint[] {
   const out: SectionPoint[] = [];
   for (const p of loop) {
     const q = out[out.length - 1];
-    if (!q || Math.hypot(p.y - q.y, p.z - q.z) > tol) out.push(p);
+    if (!q || vectorLength(p.y - q.y, p.z - q.z) > tol) out.push(p);
   }
-  while (out.length > 1 && Math.hypot(out[0]!.y - out[out.length - 1]!.y, out[0]!.z - out[out.length - 1]!.z) <= tol) out.pop();
+  while (out.length > 1 && vectorLength(out[0]!.y - out[out.length - 1]!.y, out[0]!.z - out[out.length - 1]!.z) <= tol) out.pop();
   return out;
 }
 

@@ -1,3 +1,4 @@
+import { vectorLength } from './vector';
 import type { OutlineRun } from './outline';
 import type { SectionPoint } from './types';
 
@@ -56,7 +57,7 @@ export function ringRunWidths(run: OutlineRun, first: boolean, spec: RingSpec): 
   const lerpN = (a: SectionPoint, b: SectionPoint, f: number): SectionPoint => {
     const y = a.y + f * (b.y - a.y);
     const z = a.z + f * (b.z - a.z);
-    const l = Math.hypot(y, z) || 1;
+    const l = vectorLength(y, z) || 1;
     return { y: y / l, z: z / l };
   };
   // The run's points with the rule's value, and a point put in wherever the value changes sign inside a segment.
@@ -78,15 +79,17 @@ export function ringRunWidths(run: OutlineRun, first: boolean, spec: RingSpec): 
         values.push(0);
       }
     }
-    pts.push({ y: p.y, z: p.z });
+    // The run's own point (only its y and z are read): a copy of every point was garbage for every face.
+    pts.push(p);
     normals.push(n);
     values.push(v);
   }
   const m = pts.length;
   const s = [0];
-  for (let k = 1; k < m; k++) s.push(s[k - 1]! + Math.hypot(pts[k]!.y - pts[k - 1]!.y, pts[k]!.z - pts[k - 1]!.z));
+  for (let k = 1; k < m; k++) s.push(s[k - 1]! + vectorLength(pts[k]!.y - pts[k - 1]!.y, pts[k]!.z - pts[k - 1]!.z));
   // Each segment's region from its middle (its ends may sit on the change).
-  const regions = Array.from({ length: Math.max(0, m - 1) }, (_, k) => regionOf(run.kind, first, (values[k]! + values[k + 1]!) / 2));
+  const regions: (0 | 1 | 2)[] = [];
+  for (let k = 0; k + 1 < m; k++) regions.push(regionOf(run.kind, first, (values[k]! + values[k + 1]!) / 2));
   const changes: { at: number; w0: number; w1: number }[] = [];
   for (let k = 1; k < m - 1; k++) if (regions[k] !== regions[k - 1]) changes.push({ at: s[k]!, w0: widthOf[regions[k - 1]!]!, w1: widthOf[regions[k]!]! });
   const base = regions.length > 0 ? widthOf[regions[0]!]! : spec.sidesMm;

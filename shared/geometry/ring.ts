@@ -1,3 +1,4 @@
+import { vectorLength } from './vector';
 import type { EdgePoint } from './edge';
 import { arcPoints } from './holes';
 import { type OutlineRun, loopMirrored, outlineRuns } from './outline';
@@ -72,56 +73,97 @@ export const RING_WIDTH_CHECK_MM = 0.01;
 
 /**
  * The least distance (mm) from the points to the runs' segments when it is less than `limit`, and the point
- * where it is (else `limit`). Segments are put in a grid of cells `limit` wide, so each point is tested only
- * against the segments of the cells around it: linear in the points, not quadratic.
+ * where it is (else `limit`). Segments are put in a grid of cells at least `limit` wide, so each point is
+ * tested only against the segments of the 3 x 3 cells around it (every segment within `limit` of a point
+ * touches one of them): linear in the points, not quadratic. The grid is filled by counting sort into flat
+ * typed arrays, with no allocation per cell or per segment (a map of arrays was a tenth of a frame's time).
  */
-function closestApproach(points: readonly SectionPoint[], runs: readonly OutlineRun[], limit: number): { d: number; p: SectionPoint } {
-  let best = limit;
+export function ringEdgeClearance(points: readonly SectionPoint[], runs: readonly Pick<OutlineRun, 'points'>[], limit: number): { d: number; p: SectionPoint } {
   let at = points[0] ?? { y: 0, z: 0 };
-  if (!(limit > 0)) return { d: best, p: at };
-  const cell = limit;
-  const grid = new Map<number, [SectionPoint, SectionPoint][]>();
-  const key = (i: number, j: number): number => i * 1_000_003 + j;
+  let n = 0;
+  for (const run of runs) n += Math.max(0, run.points.length - 1);
+  if (!(limit > 0) || n === 0) return { d: limit, p: at };
+  // Segment ends, flat: ay, az, by, bz.
+  const seg = new Float64Array(4 * n);
+  let minY = Infinity;
+  let minZ = Infinity;
+  let maxY = -Infinity;
+  let maxZ = -Infinity;
+  let s = 0;
   for (const run of runs) {
     const q = run.points;
-    for (let k = 0; k + 1 < q.length; k++) {
+    for (let k = 0; k + 1 < q.length; k++, s += 4) {
       const a = q[k]!;
       const b = q[k + 1]!;
-      const i0 = Math.floor(Math.min(a.y, b.y) / cell);
-      const i1 = Math.floor(Math.max(a.y, b.y) / cell);
-      const j0 = Math.floor(Math.min(a.z, b.z) / cell);
-      const j1 = Math.floor(Math.max(a.z, b.z) / cell);
-      for (let i = i0; i <= i1; i++) {
-        for (let j = j0; j <= j1; j++) {
-          const kk = key(i, j);
-          const list = grid.get(kk);
-          if (list) list.push([a, b]);
-          else grid.set(kk, [[a, b]]);
-        }
-      }
+      seg[s] = a.y;
+      seg[s + 1] = a.z;
+      seg[s + 2] = b.y;
+      seg[s + 3] = b.z;
+      minY = Math.min(minY, a.y, b.y);
+      maxY = Math.max(maxY, a.y, b.y);
+      minZ = Math.min(minZ, a.z, b.z);
+      maxZ = Math.max(maxZ, a.z, b.z);
     }
   }
+  // Cells no narrower than the limit (so the 3 x 3 around a point reach it), at most 512 a side for a tiny limit.
+  const cell = Math.max(limit, (maxY - minY) / 512, (maxZ - minZ) / 512);
+  const cols = Math.floor((maxY - minY) / cell) + 1;
+  const rows = Math.floor((maxZ - minZ) / cell) + 1;
+  const range = new Int32Array(4 * n);
+  const count = new Int32Array(cols * rows + 1);
+  for (let k = 0; k < n; k++) {
+    const i0 = Math.floor((Math.min(seg[4 * k]!, seg[4 * k + 2]!) - minY) / cell);
+    const i1 = Math.floor((Math.max(seg[4 * k]!, seg[4 * k + 2]!) - minY) / cell);
+    const j0 = Math.floor((Math.min(seg[4 * k + 1]!, seg[4 * k + 3]!) - minZ) / cell);
+    const j1 = Math.floor((Math.max(seg[4 * k + 1]!, seg[4 * k + 3]!) - minZ) / cell);
+    range[4 * k] = i0;
+    range[4 * k + 1] = i1;
+    range[4 * k + 2] = j0;
+    range[4 * k + 3] = j1;
+    for (let i = i0; i <= i1; i++) for (let j = j0; j <= j1; j++) count[i * rows + j + 1]!++;
+  }
+  for (let c = 1; c <= cols * rows; c++) count[c]! += count[c - 1]!;
+  const fill = count.slice(0, cols * rows);
+  const members = new Int32Array(count[cols * rows]!);
+  for (let k = 0; k < n; k++) {
+    for (let i = range[4 * k]!; i <= range[4 * k + 1]!; i++) for (let j = range[4 * k + 2]!; j <= range[4 * k + 3]!; j++) members[fill[i * rows + j]!++] = k;
+  }
+  // Squared distances compared; the one square root at the end gives the same figure.
+  let best2 = limit * limit;
   for (const p of points) {
-    const pi = Math.floor(p.y / cell);
-    const pj = Math.floor(p.z / cell);
-    for (let i = pi - 1; i <= pi + 1; i++) {
-      for (let j = pj - 1; j <= pj + 1; j++) {
-        const list = grid.get(key(i, j));
-        if (!list) continue;
-        for (const [a, b] of list) {
-          const vy = b.y - a.y;
-          const vz = b.z - a.z;
+    const pi = Math.floor((p.y - minY) / cell);
+    const pj = Math.floor((p.z - minZ) / cell);
+    for (let i = Math.max(0, pi - 1); i <= Math.min(cols - 1, pi + 1); i++) {
+      for (let j = Math.max(0, pj - 1); j <= Math.min(rows - 1, pj + 1); j++) {
+        for (let m = count[i * rows + j]!, end = count[i * rows + j + 1]!; m < end; m++) {
+          const o = 4 * members[m]!;
+          const ay = seg[o]!;
+          const az = seg[o + 1]!;
+          const vy = seg[o + 2]! - ay;
+          const vz = seg[o + 3]! - az;
           const l2 = vy * vy + vz * vz;
-          const t = l2 > 0 ? Math.max(0, Math.min(1, ((p.y - a.y) * vy + (p.z - a.z) * vz) / l2)) : 0;
-          const dy = p.y - a.y - t * vy;
-          const dz = p.z - a.z - t * vz;
-          const d = Math.sqrt(dy * dy + dz * dz);
-          if (d < best) [best, at] = [d, p];
+          const wy = p.y - ay;
+          const wz = p.z - az;
+          const along = wy * vy + wz * vz;
+          let d2: number;
+          if (along <= 0) d2 = wy * wy + wz * wz;
+          else if (along >= l2) d2 = (wy - vy) * (wy - vy) + (wz - vz) * (wz - vz);
+          else {
+            // Foot inside the segment: the squared distance times l2 needs no division, and most segments of
+            // the cells are far off; the margin covers rounding, so only those that may be nearer are worked out.
+            const w2 = wy * wy + wz * wz;
+            if (w2 * l2 - along * along > best2 * l2 + 1e-9 * w2 * l2) continue;
+            const t = along / l2;
+            const dy = wy - t * vy;
+            const dz = wz - t * vz;
+            d2 = dy * dy + dz * dz;
+          }
+          if (d2 < best2) [best2, at] = [d2, p];
         }
       }
     }
   }
-  return { d: best, p: at };
+  return { d: best2 < limit * limit ? Math.sqrt(best2) : limit, p: at };
 }
 
 /** How many segments from the end (or the start) of a polyline it takes to cover `lengthMm` of it. */
@@ -131,7 +173,7 @@ function segmentsWithin(pts: readonly SectionPoint[], lengthMm: number, fromEnd:
   for (let k = 1; k < n; k++) {
     const a = pts[fromEnd ? n - k : k - 1]!;
     const b = pts[fromEnd ? n - k - 1 : k]!;
-    sum += Math.hypot(b.y - a.y, b.z - a.z);
+    sum += vectorLength(b.y - a.y, b.z - a.z);
     if (sum > lengthMm) return k;
   }
   return n - 1;
@@ -159,7 +201,7 @@ function footOn(pts: readonly SectionPoint[], p: SectionPoint): Cut {
     const dz = b.z - a.z;
     const l2 = dy * dy + dz * dz;
     const s = l2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.y - a.y) * dy + (p.z - a.z) * dz) / l2));
-    const d = Math.hypot(a.y + s * dy - p.y, a.z + s * dz - p.z);
+    const d = vectorLength(a.y + s * dy - p.y, a.z + s * dz - p.z);
     if (d < bestD) [best, bestD] = [{ i, s }, d];
   }
   return best;
@@ -193,10 +235,11 @@ function joinOf(a: Moved[], aR: Moved[] | null, b: Moved[], bR: Moved[] | null, 
   // No crossing: the runs part (a corner turning the other way). Meet along the end tangents, else join straight.
   const ea = a[a.length - 1]!;
   const sb = b[0]!;
-  const full = { endA: { i: Math.max(0, a.length - 2), s: a.length > 1 ? 1 : 0 }, startB: { i: 0, s: 0 } };
+  // Literals, not a spread of a shared base (V8's slow path: several microseconds each).
+  const endA = { i: Math.max(0, a.length - 2), s: a.length > 1 ? 1 : 0 };
   const meet = polylineLinesMeet(ea, { y: -ea.nz, z: ea.ny }, sb, { y: sb.nz, z: -sb.ny });
-  if (meet && meet.s >= 0 && meet.u >= 0 && meet.s < 1e4 && meet.u < 1e4) return { ...full, middle: [{ y: ea.y - ea.nz * meet.s, z: ea.z + ea.ny * meet.s }] };
-  return { ...full, middle: [] };
+  if (meet && meet.s >= 0 && meet.u >= 0 && meet.s < 1e4 && meet.u < 1e4) return { endA, startB: { i: 0, s: 0 }, middle: [{ y: ea.y - ea.nz * meet.s, z: ea.z + ea.ny * meet.s }] };
+  return { endA, startB: { i: 0, s: 0 }, middle: [] };
 }
 
 /**
@@ -306,7 +349,7 @@ export function ringInnerEdge(half: readonly EdgePoint[], spec: RingSpec, tolera
     // Carry the arm's inner edge on along its end tangent so that it is sure to cross the top line.
     const a = edge[edge.length - 2] ?? edge[0]!;
     const b = edge[edge.length - 1]!;
-    const len = Math.hypot(b.y - a.y, b.z - a.z) || 1;
+    const len = vectorLength(b.y - a.y, b.z - a.z) || 1;
     const reach = 3 * Math.max(spec.bottomMm, spec.sidesMm, spec.underDeckMm) + 100;
     edge.push({ y: b.y + ((b.y - a.y) / len) * reach, z: b.z + ((b.z - a.z) / len) * reach });
   }
@@ -316,7 +359,7 @@ export function ringInnerEdge(half: readonly EdgePoint[], spec: RingSpec, tolera
   // opening: every point of a true inner edge stands at least the narrowest width off the outer edge.
   const minWidth = Math.min(spec.bottomMm, spec.sidesMm, ...(spec.top === 'deck' ? [spec.underDeckMm] : []));
   const checked = spec.top === 'open' ? edge.slice(0, -1) : edge;
-  const near = closestApproach(checked, runs, minWidth);
+  const near = ringEdgeClearance(checked, runs, minWidth);
   if (near.d < minWidth - RING_WIDTH_CHECK_MM) {
     fail('ring-too-wide', 'ringWidth', minWidth, `the ring widths leave no clear opening: the inner edge comes within ${near.d.toFixed(1)} mm of the frame's edge at (${near.p.y.toFixed(0)}, ${near.p.z.toFixed(0)}) mm, less than the narrowest width of ${minWidth} mm`);
   }

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   camberArcRadiusMm,
+  camberAtStation,
   camberCrownMm,
   camberHeightAt,
   camberIssues,
@@ -367,5 +368,35 @@ describe('camber properties', () => {
       }),
       { numRuns: 500 },
     );
+  });
+});
+
+describe('camberAtStation', () => {
+  // Analytic: the same closed forms as camberHeightAt / camberSlopeAt (checked against REFERENCES.md above),
+  // with the camber checked once per station instead of per call; the values must be the same numbers.
+  const cambers = [
+    parabola,
+    arc,
+    camber({ shape: 'parabola', crown: { kind: 'percent-of-beam', percent: 2 }, convention: 'scaled' }),
+    camber({ shape: 'custom', points: parabolaPoints, crown: rise, convention: 'one-pattern' }),
+    camber({ shape: 'arc', crown: { kind: 'per-foot', inchesPerFoot: 0.25 }, convention: 'scaled' }),
+  ];
+  it('gives exactly the heights and slopes of camberHeightAt and camberSlopeAt', () => {
+    fc.assert(
+      fc.property(fc.constantFrom(...cambers), fc.double({ min: 100, max: 1000, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), (c, hb, f) => {
+        const ref = camberReferenceHalfBeamMm(c, 1000);
+        const station = camberAtStation(c, hb, ref);
+        const y = f * hb;
+        expect(station.heightAt(y)).toBe(camberHeightAt(c, y, hb, ref));
+        expect(station.slopeAt(y)).toBe(camberSlopeAt(c, y, hb, ref));
+      }),
+    );
+  });
+
+  it('refuses what camberHeightAt refuses: a station wider than the pattern, a half-breadth off the deck', () => {
+    expect(thrown(() => camberAtStation(parabola, 1200, 1000))).toBe(thrown(() => camberHeightAt(parabola, 0, 1200, 1000)));
+    const station = camberAtStation(parabola, 800, 1000);
+    expect(thrown(() => station.heightAt(900))).toBe(thrown(() => camberHeightAt(parabola, 900, 800, 1000)));
+    expect(thrown(() => station.slopeAt(Number.NaN))).toMatch(/finite/);
   });
 });

@@ -1,10 +1,12 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 // @ts-expect-error clipper-lib 6.4.2 publishes no type declarations; the calls used are typed below.
 import ClipperLibUntyped from 'clipper-lib';
 import { deductionAt } from '../../shared/geometry/deduction';
+import type { EdgePoint } from '../../shared/geometry/edge';
 import { hullBuild } from '../../shared/geometry/hull';
 import { polygonArea, polygonInsidePolygon, polygonIsSimple } from '../../shared/geometry/polygon';
-import { RING_WIDTH_TAPER, type RingSpec, ringInnerEdge, ringRegion } from '../../shared/geometry/ring';
+import { RING_WIDTH_TAPER, type RingSpec, ringEdgeClearance, ringInnerEdge, ringRegion } from '../../shared/geometry/ring';
 import { CHORD_TOLERANCE_MM, GeometryInputError, type SectionPoint } from '../../shared/geometry/types';
 import { chineHull, evenStations, range, roundHull } from './analytic-hulls';
 import { expectClose } from './helpers';
@@ -213,3 +215,63 @@ function distanceToLoop(p: SectionPoint, loop: readonly SectionPoint[]): number 
   }
   return best;
 }
+
+describe('ringEdgeClearance', () => {
+  const edge = (pts: readonly SectionPoint[]): EdgePoint[] => pts.map((q) => ({ y: q.y, z: q.z, ny: 0, nz: 0, rate: 0, bevel: 0, girthMm: 0, setInMm: 0, edge: 'hull', corner: false }));
+  // Analytic: the distance from a point to a segment, taken over every pair (no grid), is what the grid of
+  // cells at least `limit` wide must find whenever it is below the limit; points and runs at random, some
+  // runs long and sparse, some short and dense, limits from well below to well above the segment lengths.
+  const segmentDistance = (p: SectionPoint, a: SectionPoint, b: SectionPoint): number => {
+    const vy = b.y - a.y;
+    const vz = b.z - a.z;
+    const l2 = vy * vy + vz * vz;
+    const t = l2 > 0 ? Math.max(0, Math.min(1, ((p.y - a.y) * vy + (p.z - a.z) * vz) / l2)) : 0;
+    return Math.hypot(p.y - a.y - t * vy, p.z - a.z - t * vz);
+  };
+  const pt = fc.record({ y: fc.double({ min: -2000, max: 2000, noNaN: true }), z: fc.double({ min: -500, max: 3000, noNaN: true }) });
+  const step = fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }));
+  const near = fc.record({ run: fc.nat(), k: fc.nat(), t: fc.double({ min: 0, max: 1, noNaN: true }), dy: fc.double({ min: -1, max: 1, noNaN: true }), dz: fc.double({ min: -1, max: 1, noNaN: true }) });
+  it('finds a segment in each of the eight cells around the point', () => {
+    // Analytic: a point in the middle of a cell (the grid set by two far corner runs) and one short run 80 mm
+    // off it toward each neighbouring cell in turn; the limit, and so the cells, 100 mm.
+    const asRun = (pts: SectionPoint[]): { points: ReturnType<typeof edge> } => ({ points: edge(pts) });
+    const p = { y: 550, z: 550 };
+    for (const [di, dj] of [[-1, -1], [-1, 0], [-1, 1], [0, -1], [0, 1], [1, -1], [1, 0], [1, 1]] as const) {
+      const l = Math.hypot(di, dj);
+      const q = { y: p.y + (80 * di) / l, z: p.z + (80 * dj) / l };
+      const runs = [asRun([{ y: 0, z: 0 }, { y: 1, z: 0 }]), asRun([{ y: 1200, z: 1200 }, { y: 1201, z: 1200 }]), asRun([q, { y: q.y + 1e-3 * dj, z: q.z - 1e-3 * di }])];
+      expectClose(ringEdgeClearance([p], runs, 100).d, 80, 1e-6, `run toward (${di}, ${dj})`);
+    }
+  });
+
+  it('finds the least distance below the limit exactly as a test of every pair does', () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(pt, fc.array(step, { minLength: 1, maxLength: 30 })), { minLength: 1, maxLength: 4 }), fc.double({ min: 0.5, max: 1500, noNaN: true }), fc.array(near, { minLength: 1, maxLength: 40 }), (walks, limit, around) => {
+        // Runs as walks from a start, each step up to the limit long: a run's segments fill cells of their own,
+        // so a point's nearest segment is often in a cell beside its own.
+        const runs = walks.map(([start, steps]) => {
+          // Starts within a few limits of each other, so the cells are the limit wide (not the spread / 512).
+          const r = [{ y: start.y * 0.005 * limit, z: start.z * 0.005 * limit }];
+          for (const [u, v] of steps) r.push({ y: r[r.length - 1]!.y + limit * u, z: r[r.length - 1]!.z + limit * v });
+          return r;
+        });
+        // Most points within about the limit of some segment, in every direction (the cells beside a point's own).
+        const points = around.map((o) => {
+          const r = runs[o.run % runs.length]!;
+          const k = o.k % (r.length - 1);
+          return { y: r[k]!.y + o.t * (r[k + 1]!.y - r[k]!.y) + 1.5 * limit * o.dy, z: r[k]!.z + o.t * (r[k + 1]!.z - r[k]!.z) + 1.5 * limit * o.dz };
+        });
+        let best = limit;
+        for (const p of points) for (const r of runs) for (let k = 0; k + 1 < r.length; k++) best = Math.min(best, segmentDistance(p, r[k]!, r[k + 1]!));
+        const got = ringEdgeClearance(points, runs.map((r) => ({ points: edge(r) })), limit);
+        expectClose(got.d, best, 1e-9 * Math.max(1, best), 'least distance');
+        if (best < limit) {
+          let at = Infinity;
+          for (const r of runs) for (let k = 0; k + 1 < r.length; k++) at = Math.min(at, segmentDistance(got.p, r[k]!, r[k + 1]!));
+          expectClose(at, best, 1e-9 * Math.max(1, best), 'the point it names');
+        }
+      }),
+      { numRuns: 300, seed: 11 },
+    );
+  });
+});
