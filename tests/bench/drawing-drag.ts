@@ -31,7 +31,12 @@ async function main() {
     const password = 'bench password 1';
     const user = await userCreate({ email: `drag-bench-${Date.now()}@example.test`, displayName: 'Bench', password }, 10);
     const hull = await hullCreate(user.id, { name: 'Large invented hull', units: 'mm', notes: '' });
-    const plan = planSchema.parse({ schemaVersion: PLAN_SCHEMA_VERSION, lines: inventedHull(60), parts: { longitudinals: [], parts: [] } });
+    // A ring frame of two 9 mm layers at the middle station (the one the screen opens on and the drag
+    // moves), as in tests/bench/parts.bench.ts, so the drag also carries the part that follows it live.
+    const lines = inventedHull(60);
+    const middle = [...lines.stations].sort((a, b) => a.x - b.x)[Math.floor(lines.stations.length / 2)]!;
+    const frame = { id: 'f-mid', name: `Frame ${middle.name}`, kind: 'ring-frame', stationId: middle.id, thicknessMm: 18, layers: [{ thicknessMm: 9 }, { thicknessMm: 9 }], bevelMarks: { everyMm: 25 }, ringWidth: { bottomMm: 80, sidesMm: 55, underDeckMm: 60 }, innerCornerRadiusMm: 20 };
+    const plan = planSchema.parse({ schemaVersion: PLAN_SCHEMA_VERSION, lines, parts: { longitudinals: [], parts: [frame] } });
     await revisionSave({ hullId: hull.id, units: 'mm', authorId: user.id, role: 'owner', baseRevisionId: null, plan });
 
     const { page, consoleErrors } = await rig.newPage({ width: 1440, height: 1000 });
@@ -70,7 +75,7 @@ async function main() {
     // Handles of close waterlines overlap: the one on top took the drag. Its row is the chosen one.
     const dragged = await page.getByTestId('station-offsets').locator('tr.bg-primary-soft th').first().innerText();
 
-    console.log(`Drag of a waterline point (${dragged.split('\n')[0]} at station ${station.name}, aimed at ${wl.name}) on the large invented hull: ${plan.lines.stations.length} stations, ${plan.lines.lines.length} lines, ${MOVES} pointer moves`);
+    console.log(`Drag of a waterline point (${dragged.split('\n')[0]} at station ${station.name}, aimed at ${wl.name}) on the large invented hull: ${plan.lines.stations.length} stations, ${plan.lines.lines.length} lines, a ring frame at the station following the drag, ${MOVES} pointer moves`);
     console.log(figures('move to painted frame', measures[DRAG_MEASURES.moveToPaint]!));
     console.log(figures('move handler', measures[DRAG_MEASURES.handler]!));
     console.log(figures('frame work', measures[DRAG_MEASURES.frame]!));

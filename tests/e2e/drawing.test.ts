@@ -130,10 +130,29 @@ describe('Drawing in the browser', () => {
     // St 3 is forward of midships (350..4900 mm, x growing aft): drawn right of the centreline.
     expect(sides.get('st-3')).toBe('forward');
     const handle = await pagePoint(page, { x: before, y: 500 });
+    // Frame 3 stands at St 3: its cut outline is laid over the body plan while the drag goes on.
+    await page.getByText('Part at this station (follows the drag)').waitFor();
+    const partWidth = async () => {
+      const v = await page.getByTestId('body-plan').getAttribute('data-part-half-breadth');
+      return v === null ? null : Number(v);
+    };
+    const widthBefore = (await partWidth())!;
+    expect(widthBefore).toBeGreaterThan(0);
     await page.mouse.move(handle.x, handle.y);
     await page.mouse.down();
     // Across and also up: the waterline point may only move across.
     await page.mouse.move(handle.x + 16, handle.y - 25, { steps: 12 });
+    // Still held down: the part is worked out again for the dragged value (once the pointer rests) and drawn.
+    await expect.poll(partWidth, { timeout: 10_000 }).not.toBe(widthBefore);
+    expect(await page.getByTestId('body-plan').getAttribute('data-dragging')).toBe('true');
+    // Let any computation for an earlier position of the pointer give way to the one for where it stopped.
+    await page.waitForTimeout(400);
+    const widthMidDrag = (await partWidth())!;
+    // WL 500 pushed outward fills the section out between chine and sheer, so the frame cut from it is wider.
+    expect(widthMidDrag).toBeGreaterThan(widthBefore);
+    await rig.screenshot(page, 'drawing-01b-part-follows-drag');
+    // Nothing is saved while the drag goes on: the side table still holds the old half-breadth.
+    expect(Number(await sideInput(page, 'WL 500 at St 3').inputValue())).toBe(before);
     await page.mouse.up();
     const v = await viewportOf(page);
     const box = (await page.getByTestId('body-plan').locator('.konvajs-content').boundingBox())!;
@@ -143,6 +162,8 @@ describe('Drawing in the browser', () => {
     // Rounded to the hull's precision, 0.5 mm (demo notation).
     expect(Math.abs(after - expected)).toBeLessThanOrEqual(0.25 + 1e-9);
     expect(after - before).toBeCloseTo(16 / v.scale, -0.5);
+    // Let go where the drag last drew: the part at the station is the one drawn mid-drag.
+    await expect.poll(partWidth).toBeCloseTo(widthMidDrag, 3);
 
     // The autosaved draft differs from the revision in that one cell and nowhere else.
     await page.getByTestId('save-status').getByText('Draft saved').waitFor({ timeout: 15_000 });
@@ -172,6 +193,7 @@ describe('Drawing in the browser', () => {
     await page.getByRole('button', { name: 'Previous station' }).click();
     await page.getByRole('heading', { name: 'Station St 3' }).waitFor();
     expect(Number(await sideInput(page, 'WL 500 at St 3').inputValue())).toBe(before);
+    await expect.poll(partWidth).toBe(widthBefore);
     await view(page, 'Part').click();
     await partCanvas.waitFor();
     await page.waitForTimeout(300);

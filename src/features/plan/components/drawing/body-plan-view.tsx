@@ -29,6 +29,8 @@ import {
   type OffsetHandle,
 } from '../../drawing/body-plan';
 import { DRAG_MEASURES } from '../../drawing/drag-measures';
+import type { LivePartAsk } from '../../drawing/live-part.worker';
+import { draggedPartOutlines, livePartCache, livePartDue, livePartOutlinesOf, outlinesHalfBreadth, partsAtStation, REST_MS, type LivePartOutline } from '../../drawing/live-part';
 import { createSectionCache, stationSectionOf } from '../../drawing/station-section';
 import { toHull, toScreen, type Point, type Viewport } from '../../drawing/viewport';
 import { lengthWords } from '../../format';
@@ -61,6 +63,9 @@ const AFT = '#7d1a14';
 const REFERENCE = '#8a949b';
 const CAUTION = '#b7791f';
 const KNUCKLE = '#6b4a00';
+/** The part at the dragged station: a violet none of the section, reference or flag colours is near. */
+const LIVE_PART = '#6b2fa3';
+const LIVE_PART_WORDS = 'Part at this station (follows the drag)';
 const HANDLE_RADIUS_PX = 9;
 /** How near (screen px) another point must be to pull a dragged offset to it. */
 const SNAP_PX = 8;
@@ -68,6 +73,16 @@ const SNAP_PX = 8;
 const CLICK_SLOP_PX = 3;
 /** Grid spacings offered (mm), the first the default: 10 mm, or about 1/2 in for an imperial hull. */
 const GRID_MM = { mm: 10, in: 12.7, ftin: 12.7 } as const;
+
+/** A worker for the dragged part where the browser has them; null where it has not (the component tests' DOM). */
+function startPartWorker(): Worker | null {
+  if (typeof Worker === 'undefined') return null;
+  try {
+    return new Worker(new URL('../../drawing/live-part.worker.ts', import.meta.url), { type: 'module' });
+  } catch {
+    return null;
+  }
+}
 
 const flat = (view: Viewport, pts: Point[]): number[] => pts.flatMap((p) => {
   const s = toScreen(view, p);
@@ -87,6 +102,18 @@ interface Drag {
   moved: boolean;
   /** Takes off the window listeners this drag put on. */
   detach: () => void;
+  /** The offset as last drawn (mm, on its line's direction): what the part is worked out for. */
+  at: SectionPlanePoint | null;
+  /** When the pointer last moved (ms, performance clock). */
+  lastMoveAt: number;
+  /** The part's throttle (live-part.ts `livePartDue`): one computation pending, frames since the last, the rest timer. */
+  partPending: boolean;
+  partFrames: number;
+  partTimer: ReturnType<typeof setTimeout> | undefined;
+  /** The question last sent to the worker, and the offset it was for. */
+  partAsked: { id: number; at: SectionPlanePoint } | null;
+  /** The worker's latest answer, drawn with the next frame (one render and one layer draw, not two). */
+  partAnswer: LivePartOutline[] | null;
 }
 
 interface Preview {
@@ -149,11 +176,34 @@ const SectionShape = memo(function SectionShape({
 });
 
 /**
+ * The part's cut outline over the dragged station, outer edge solid and inner edge dashed, on the station's
+ * side as its section is (a frame is symmetric, so the mirror for an aft station is the same part). Kept
+ * apart (memo) so a section frame does not map its points again: they change only with a new answer.
+ */
+const LivePartShape = memo(function LivePartShape({ view, outlines, side }: { view: Viewport; outlines: readonly LivePartOutline[]; side: 'forward' | 'aft' }) {
+  return (
+    <>
+      {outlines.map((o) => (
+        <Group key={o.partId} listening={false}>
+          {o.outer.map((loop, i) => (
+            <Line key={`o${i}`} points={flat(view, loop.map((p) => drawingPointOf(p, side)))} closed stroke={LIVE_PART} strokeWidth={2.5} lineJoin="round" perfectDrawEnabled={false} />
+          ))}
+          {o.inner.map((loop, i) => (
+            <Line key={`i${i}`} points={flat(view, loop.map((p) => drawingPointOf(p, side)))} closed stroke={LIVE_PART} strokeWidth={2} dash={[8, 4]} lineJoin="round" perfectDrawEnabled={false} />
+          ))}
+        </Group>
+      ))}
+    </>
+  );
+});
+
+/**
  * The body plan: every station's section, forward ones right of the centreline and aft ones left, over
  * the waterlines, buttocks and diagonals; knuckles marked with squares and fairness flags with triangles.
  * The chosen station's offsets are handles: each is dragged along the one direction its cell allows, the
  * section following live (only that station is worked out again, at most once a frame), and one edit is
- * made when the drag ends.
+ * made when the drag ends. A part at the dragged station follows too: its cut outline, worked out from the
+ * whole plan with the dragged value (in a worker where there is one), one computation at a time.
  */
 export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSelect, onEdit, cellFlags }: BodyPlanViewProps) {
   const lines = plan.lines;
@@ -173,6 +223,17 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
   const viewRef = useRef<Viewport | null>(null);
   const groupRef = useRef<Konva.Group>(null);
   const stationId = selection?.stationId ?? null;
+  // The part(s) at the chosen station: worked out here from the plan as it stands (its widest half-breadth is
+  // reported on the element; the cache recomputes only when the part's input changes), and from the dragged
+  // plan while a point of that station is dragged, in the worker (its own cache) or, without one, here.
+  const [partCache] = useState(livePartCache);
+  const [livePart, setLivePart] = useState<{ stationId: string; outlines: LivePartOutline[] } | null>(null);
+  /** How long the last part computation of a drag took (ms): the throttle's measure of this hull. */
+  const partCost = useRef<number | null>(null);
+  const partWorker = useRef<Worker | null>(null);
+  const partAskId = useRef(0);
+  const restOutlines = useMemo(() => (stationId ? livePartOutlinesOf(hull, plan, stationId, partCache) : []), [hull, plan, stationId, partCache]);
+  const stationHasParts = stationId !== null && partsAtStation(plan, stationId).length > 0;
 
   // What the drag handler reads without being made again on every render.
   const latest = useRef({ plan, notation, snapGrid, snapPoints, allPoints, onEdit, onSelect });
@@ -180,6 +241,38 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
   const pickStation = useCallback((id: string) => latest.current.onSelect({ stationId: id, lineId: null }), []);
 
   useEffect(() => () => endDrag(false), []);
+  useEffect(() => {
+    const w = startPartWorker();
+    partWorker.current = w;
+    if (!w) return undefined;
+    w.onmessage = (event: MessageEvent<{ id: number; outlines: LivePartOutline[] | null }>) => {
+      const d = drag.current;
+      if (!d || d.partAsked?.id !== event.data.id) return;
+      const asked = d.partAsked;
+      d.partAsked = null;
+      d.partPending = false;
+      // Lines that build no hull draw no part (rather than the last one, which would no longer be true).
+      d.partAnswer = event.data.outlines ?? [];
+      if (!d.frame) d.frame = requestAnimationFrame(() => drawFrame(d));
+      // The pointer moved on while this one was worked out and has stopped since: catch up now.
+      if (d.at !== asked.at) partMaybe(d);
+    };
+    // A worker that fails leaves the part to the page's thread.
+    w.onerror = () => {
+      partWorker.current = null;
+      const d = drag.current;
+      if (d?.partPending) {
+        d.partPending = false;
+        d.partAsked = null;
+        partMaybe(d);
+      }
+    };
+    return () => {
+      w.terminate();
+      partWorker.current = null;
+    };
+    // Once for the view's life: the handlers read the drag through refs.
+  }, []);
 
   function moveTo(d: Drag, clientX: number, clientY: number): Preview | null {
     const { plan: currentPlan, notation: n, snapGrid: grid, snapPoints: pts, allPoints: everyPoint } = latest.current;
@@ -206,6 +299,10 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
     if (!d.moved && Math.hypot(e.clientX - d.startX, e.clientY - d.startY) < CLICK_SLOP_PX) return;
     d.moved = true;
     const started = performance.now();
+    d.lastMoveAt = started;
+    // The pointer may stop here: the part is worked out once it has rested (or sooner on a cheap hull).
+    clearTimeout(d.partTimer);
+    d.partTimer = setTimeout(() => partMaybe(d), REST_MS);
     d.pending = { clientX: e.clientX, clientY: e.clientY, moves: [...(d.pending?.moves ?? []), started] };
     // At most one section a frame: pointer events can come faster than the screen paints.
     if (!d.frame) d.frame = requestAnimationFrame(() => drawFrame(d));
@@ -216,17 +313,76 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
     d.frame = 0;
     const p = d.pending;
     d.pending = null;
-    if (!p || drag.current !== d) return;
+    if (drag.current !== d) return;
+    const answer = d.partAnswer;
+    d.partAnswer = null;
+    const showAnswer = () => {
+      if (answer) setLivePart({ stationId: d.handle.stationId, outlines: answer });
+    };
+    if (!p) {
+      // No move to draw, only the worker's answer (the pointer is resting).
+      if (answer) {
+        flushSync(showAnswer);
+        groupRef.current?.getLayer()?.draw();
+      }
+      return;
+    }
     const began = performance.now();
     const next = moveTo(d, p.clientX, p.clientY);
     if (!next) return;
-    flushSync(() => setPreview(next));
+    d.at = next.at;
+    flushSync(() => {
+      setPreview(next);
+      showAnswer();
+    });
     // Draw now rather than at konva's next frame, so the point is under the pointer in this frame.
     groupRef.current?.getLayer()?.draw();
     const end = performance.now();
     performance.measure(DRAG_MEASURES.frame, { start: began, end });
     // Every move this frame answered, from its handler to the drawn frame (what the bench reports).
     for (const at of p.moves) performance.measure(DRAG_MEASURES.moveToPaint, { start: at, end });
+    d.partFrames += 1;
+    partMaybe(d);
+  }
+
+  /** Start the part's computation if the throttle allows it now: sent to the worker, or else run in its own task after this frame is painted. */
+  function partMaybe(d: Drag) {
+    if (drag.current !== d || !d.at || !partsAtStation(latest.current.plan, d.handle.stationId).length) return;
+    const worker = partWorker.current;
+    if (!livePartDue({ pending: d.partPending, offThread: worker !== null, framesSince: d.partFrames, lastCostMs: partCost.current, restedMs: performance.now() - d.lastMoveAt })) return;
+    d.partPending = true;
+    d.partFrames = 0;
+    if (worker) {
+      const at = d.at;
+      const id = (partAskId.current += 1);
+      d.partAsked = { id, at };
+      // The plan with the dragged value in its cell: the same action, and so the same plan, the drag's edit makes when it ends.
+      const dragged = offsetMove(latest.current.plan, { lineId: d.handle.lineId, stationId: d.handle.stationId, to: at });
+      worker.postMessage({ id, plan: dragged, stationId: d.handle.stationId } satisfies LivePartAsk);
+      return;
+    }
+    setTimeout(() => partRun(d), 0);
+  }
+
+  function partRun(d: Drag) {
+    const at = d.at;
+    if (drag.current !== d || !at) {
+      d.partPending = false;
+      return;
+    }
+    const began = performance.now();
+    // As in the worker's question: the plan as the drag's edit will make it.
+    const dragged = offsetMove(latest.current.plan, { lineId: d.handle.lineId, stationId: d.handle.stationId, to: at });
+    const outlines = draggedPartOutlines(dragged, d.handle.stationId, partCache);
+    partCost.current = performance.now() - began;
+    d.partPending = false;
+    // Lines that build no hull draw no part (rather than the last one, which would no longer be true).
+    setLivePart({ stationId: d.handle.stationId, outlines: outlines ?? [] });
+    // The pointer moved on while this one was worked out: catch up once it rests (the timer of its last move may have fired meanwhile).
+    if (d.at !== at) {
+      clearTimeout(d.partTimer);
+      d.partTimer = setTimeout(() => partMaybe(d), Math.max(0, REST_MS - (performance.now() - d.lastMoveAt)));
+    }
   }
 
   function onWindowUp(e: PointerEvent) {
@@ -243,10 +399,12 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
     const d = drag.current;
     if (!d) return;
     cancelAnimationFrame(d.frame);
+    clearTimeout(d.partTimer);
     drag.current = null;
     d.detach();
     const final = commit && e && d.moved ? moveTo(d, e.clientX, e.clientY) : null;
     setPreview(null);
+    setLivePart(null);
     if (final) {
       const { plan: current, onEdit: apply } = latest.current;
       const line = current.lines.lines.find((l) => l.id === final.lineId);
@@ -275,7 +433,7 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
       window.removeEventListener('pointercancel', up);
       window.removeEventListener('keydown', key);
     };
-    drag.current = { handle, side, pointerId: e.evt.pointerId, pending: null, frame: 0, startX: e.evt.clientX, startY: e.evt.clientY, moved: false, detach };
+    drag.current = { handle, side, pointerId: e.evt.pointerId, pending: null, frame: 0, startX: e.evt.clientX, startY: e.evt.clientY, moved: false, detach, at: null, lastMoveAt: performance.now(), partPending: false, partFrames: Infinity, partTimer: undefined, partAsked: null, partAnswer: null };
     latest.current.onSelect({ stationId: handle.stationId, lineId: handle.lineId });
   }
 
@@ -372,10 +530,17 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
     [bounds, references, stations, sections, sides, stationId, draggingId, flags, pickStation],
   );
 
+  // Drawn only while a point of its station is dragged; at rest the Part view is where a part is seen.
+  const shownPart = preview && livePart && livePart.stationId === preview.stationId ? livePart : null;
+  const partSide: 'forward' | 'aft' = shownPart && sides.get(shownPart.stationId) === 'aft' ? 'aft' : 'forward';
+  // The widest half-breadth of the part at the chosen station, as dragged or as it stands, for the browser test to read.
+  const partHalfBreadth = outlinesHalfBreadth(shownPart?.outlines ?? restOutlines);
+
   const drawOverlay = (view: Viewport) => {
     viewRef.current = view;
     return (
       <Group ref={groupRef}>
+        {shownPart && <LivePartShape view={view} outlines={shownPart.outlines} side={partSide} />}
         {preview?.section && <SectionShape view={view} section={preview.section} side={sides.get(preview.stationId) ?? 'forward'} selected stationId={preview.stationId} onPick={null} />}
         {handles.map((h) => {
           const p = toScreen(view, drawingPointOf(h.at, handleSide));
@@ -402,10 +567,19 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
   };
 
   return (
-    <div data-testid="body-plan" data-dragging={preview ? 'true' : undefined} onKeyDown={onDrawingKey}>
+    <div data-testid="body-plan" data-dragging={preview ? 'true' : undefined} data-part-half-breadth={partHalfBreadth === null ? undefined : partHalfBreadth.toFixed(3)} onKeyDown={onDrawingKey}>
       <DrawingStage bounds={bounds} notation={notation} label="Body plan" toolbarExtra={toolbarExtra} pointerWords={pointerWords} overlay={drawOverlay}>
         {drawStatic}
       </DrawingStage>
+      {stationHasParts && !readOnly && (
+        // Always there when the station has a part, so the page does not shift when a drag starts.
+        <p className="mt-2 flex items-center gap-2 text-sm">
+          <svg aria-hidden="true" width="32" height="12" className="shrink-0">
+            <line x1="0" y1="6" x2="32" y2="6" stroke={LIVE_PART} strokeWidth={2.5} />
+          </svg>
+          {LIVE_PART_WORDS}
+        </p>
+      )}
       {notDrawn.length > 0 && (
         <p className="mt-2 text-caution">
           No section drawn at {notDrawn.map((s) => s.name).join(', ')}: the hull has no section there from these offsets.
