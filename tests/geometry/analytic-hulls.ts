@@ -191,3 +191,38 @@ export function range(a: number, b: number, step: number): number[] {
   for (let v = a; v <= b + 1e-9; v += step) out.push(Number(v.toFixed(6)));
   return out;
 }
+
+export interface PrismaticPoint {
+  id: string;
+  name: string;
+  role: 'keel' | 'chine' | 'sheer' | 'other';
+  /** Half-breadth and height of the point at every station (mm). */
+  y: number;
+  z: number;
+  /** The line's knuckle, as the table gives it ({} = a knuckle all along). */
+  knuckle?: { fromX?: number | null; toX?: number | null };
+}
+
+/**
+ * A prismatic hard-chine hull: the same section at every station, straight panels between point lines
+ * that are knuckles (unless a point says otherwise), skin `skinMm` thick. Every panel is then the straight
+ * line between its two corners, at any x, so sections, deductions and frames can be checked by hand.
+ */
+export function prismaticHull(spec: { xs: number[]; points: PrismaticPoint[]; skinMm: number }): HullLinesInput {
+  const cells = (p: PointCell): Cells<PointCell> => Object.fromEntries(spec.xs.map((_, i) => [`st${i}`, p]));
+  return {
+    notation: {},
+    stations: spec.xs.map((x, i) => ({ id: `st${i}`, name: String(i), x })),
+    lines: spec.points.map((p) => ({ id: p.id, name: p.name, kind: 'point' as const, role: p.role, knuckle: p.knuckle ?? {}, cells: cells({ y: p.y, z: p.z }) })),
+    skin: { defaultThicknessMm: spec.skinMm },
+  };
+}
+
+/** The V-bottom of the knuckle tests: keel (0, 0), a straight deadrise to the chine (800, 300), the sheer at (sheerY, sheerZ). */
+export function vBottom(sheerY: number, sheerZ: number): PrismaticPoint[] {
+  return [
+    { id: 'keel', name: 'Keel', role: 'keel', y: 0, z: 0 },
+    { id: 'chine', name: 'Chine', role: 'chine', y: 800, z: 300 },
+    { id: 'sheer', name: 'Sheer', role: 'sheer', y: sheerY, z: sheerZ },
+  ];
+}

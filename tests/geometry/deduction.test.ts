@@ -7,7 +7,7 @@ import type { HullLinesInput } from '../../shared/geometry/hull-schema';
 import { hullBuild } from '../../shared/geometry/hull';
 import { type Section, sectionAt } from '../../shared/geometry/section';
 import { CHORD_TOLERANCE_MM } from '../../shared/geometry/types';
-import { chineHull, evenStations, range, roundHull } from './analytic-hulls';
+import { chineHull, evenStations, prismaticHull, range, roundHull, vBottom } from './analytic-hulls';
 import { expectClose } from './helpers';
 
 interface IntPoint {
@@ -199,17 +199,7 @@ describe('deductionOf: V bottom', () => {
     // Analytic: keel knuckle at (0, 0), bottom straight to the chine (800, 300); set in t = 10 along the normal
     // (300, -800)/L: the inner bottom 300 y - 800 z = -10 L meets the centreline at z = 10 L / 800.
     const xs = evenStations(0, 2000, 4);
-    const cells = <T,>(v: T) => Object.fromEntries(xs.map((_, i) => [`st${i}`, v]));
-    const hull = hullBuild({
-      notation: {},
-      stations: xs.map((x, i) => ({ id: `st${i}`, name: String(i), x })),
-      lines: [
-        { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', knuckle: {}, cells: cells({ y: 0, z: 0 }) },
-        { id: 'chine', name: 'Chine', kind: 'point', role: 'chine', knuckle: {}, cells: cells({ y: 800, z: 300 }) },
-        { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', knuckle: {}, cells: cells({ y: 900, z: 900 }) },
-      ],
-      skin: { defaultThicknessMm: 10 },
-    });
+    const hull = hullBuild(prismaticHull({ xs, points: vBottom(900, 900), skinMm: 10 }));
     const d = deductionAt(hull, 700)!;
     expectClose(d.hull[0]!.y, 0, 1e-9, 'on the centreline');
     expectClose(d.hull[0]!.z, (10 * Math.hypot(800, 300)) / 800, 1e-6, 'height');

@@ -8,7 +8,7 @@ import { hullBuild } from '../../shared/geometry/hull';
 import { polygonArea, polygonInsidePolygon, polygonIsSimple } from '../../shared/geometry/polygon';
 import { RING_WIDTH_TAPER, type RingSpec, ringEdgeClearance, ringInnerEdge, ringRegion } from '../../shared/geometry/ring';
 import { CHORD_TOLERANCE_MM, GeometryInputError, type SectionPoint } from '../../shared/geometry/types';
-import { chineHull, evenStations, range, roundHull } from './analytic-hulls';
+import { chineHull, evenStations, prismaticHull, range, roundHull, vBottom } from './analytic-hulls';
 import { expectClose } from './helpers';
 
 const DEG = Math.PI / 180;
@@ -160,17 +160,7 @@ describe('ringInnerEdge: V bottom', () => {
     // No skin, no clearance. The bottom's inner line moved in by 80 mm meets the centreline; the rounding circle
     // of radius 30 has its centre on the centreline, 80 + 30 mm in from the bottom line.
     const xs = evenStations(0, 2000, 4);
-    const cells = <T,>(v: T) => Object.fromEntries(xs.map((_, i) => [`st${i}`, v]));
-    const hull = hullBuild({
-      notation: {},
-      stations: xs.map((x, i) => ({ id: `st${i}`, name: String(i), x })),
-      lines: [
-        { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', knuckle: { fromX: null, toX: null }, cells: cells({ y: 0, z: 0 }) },
-        { id: 'chine', name: 'Chine', kind: 'point', role: 'chine', knuckle: { fromX: null, toX: null }, cells: cells({ y: 800, z: 300 }) },
-        { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', knuckle: { fromX: null, toX: null }, cells: cells({ y: 800, z: 800 }) },
-      ],
-      skin: { defaultThicknessMm: 0 },
-    });
+    const hull = hullBuild(prismaticHull({ xs, points: vBottom(800, 800).map((p) => ({ ...p, knuckle: { fromX: null, toX: null } })), skinMm: 0 }));
     const half = deductionAt(hull, 1000)!.outline;
     const inner = ringInnerEdge(half, spec({ bottomMm: 80, sidesMm: 60, underDeckMm: 60, bottom: { by: 'girth', girthMm: Math.hypot(800, 300) }, cornerRadiusMm: 30 }));
     const L = Math.hypot(800, 300);

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { hullBuild } from '../../shared/geometry/hull';
 import { type Section, sectionAt, sectionVertexAtGirth } from '../../shared/geometry/section';
 import { CHORD_TOLERANCE_MM } from '../../shared/geometry/types';
-import { chineHull, evenStations, range, roundHull } from './analytic-hulls';
+import { chineHull, evenStations, prismaticHull, range, roundHull, vBottom } from './analytic-hulls';
 import { expectClose } from './helpers';
 
 const DEG = Math.PI / 180;
@@ -178,18 +178,18 @@ describe('sectionAt: a multi-chine hull whose upper chine dies out forward', () 
     // Analytic: keel (0, 0), lower chine (500, 150), upper chine (800, 450) knuckled aft of x = 1000 only,
     // sheer (900, 800); all constant along x, so every panel between corners is the straight line.
     const xs = evenStations(0, 2000, 4);
-    const cells = <T,>(v: T) => Object.fromEntries(xs.map((_, i) => [`st${i}`, v]));
-    const hull = hullBuild({
-      notation: {},
-      stations: xs.map((x, i) => ({ id: `st${i}`, name: String(i), x })),
-      lines: [
-        { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', knuckle: {}, cells: cells({ y: 0, z: 0 }) },
-        { id: 'c1', name: 'Lower chine', kind: 'point', role: 'chine', knuckle: {}, cells: cells({ y: 500, z: 150 }) },
-        { id: 'c2', name: 'Upper chine', kind: 'point', role: 'chine', knuckle: { fromX: 1000 }, cells: cells({ y: 800, z: 450 }) },
-        { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', knuckle: {}, cells: cells({ y: 900, z: 800 }) },
-      ],
-      skin: { defaultThicknessMm: 0 },
-    });
+    const hull = hullBuild(
+      prismaticHull({
+        xs,
+        points: [
+          { id: 'keel', name: 'Keel', role: 'keel', y: 0, z: 0 },
+          { id: 'c1', name: 'Lower chine', role: 'chine', y: 500, z: 150 },
+          { id: 'c2', name: 'Upper chine', role: 'chine', y: 800, z: 450, knuckle: { fromX: 1000 } },
+          { id: 'sheer', name: 'Sheer', role: 'sheer', y: 900, z: 800 },
+        ],
+        skinMm: 0,
+      }),
+    );
     const aft = sectionAt(hull, 1500)!;
     const corners = (s: Section) => [...new Set(s.vertices.filter((v) => v.corner).map((v) => `${v.y},${v.z}`))];
     expect(corners(aft)).toEqual(['0,0', '500,150', '800,450', '900,800']);
@@ -203,17 +203,7 @@ describe('sectionAt: a multi-chine hull whose upper chine dies out forward', () 
 describe('sectionAt: a V bottom with a knuckle at the keel', () => {
   // Analytic: keel (0, 0) knuckle, chine at (800, 300) knuckle, side to the sheer at (900, 900): straight lines.
   const xs = evenStations(0, 2000, 4);
-  const cells = <T,>(v: T) => Object.fromEntries(xs.map((_, i) => [`st${i}`, v]));
-  const hull = hullBuild({
-    notation: {},
-    stations: xs.map((x, i) => ({ id: `st${i}`, name: String(i), x })),
-    lines: [
-      { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', knuckle: {}, cells: cells({ y: 0, z: 0 }) },
-      { id: 'chine', name: 'Chine', kind: 'point', role: 'chine', knuckle: {}, cells: cells({ y: 800, z: 300 }) },
-      { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', knuckle: {}, cells: cells({ y: 900, z: 900 }) },
-    ],
-    skin: { defaultThicknessMm: 0 },
-  });
+  const hull = hullBuild(prismaticHull({ xs, points: vBottom(900, 900), skinMm: 0 }));
 
   it('leaves the centreline along the bottom, not square to it', () => {
     const s = sectionAt(hull, 500)!;
