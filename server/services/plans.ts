@@ -1,17 +1,25 @@
 import { promisify } from 'node:util';
-import { gunzip, gzip } from 'node:zlib';
+import { constants as zlibConstants, gunzip, gzip } from 'node:zlib';
 import { QueryTypes, type Transaction } from 'sequelize';
+import { connectorTransaction, type WriteResult } from '../db';
 import type { Role } from '../../shared/api/hulls';
 import type { DraftResponse, RevisionSummary } from '../../shared/api/plan';
 import { planCompare, planChangeSummary, type PlanChange } from '../../shared/geometry/plan-compare';
 import { planEmpty, planRead } from '../../shared/geometry/plan';
 import { PLAN_SCHEMA_VERSION, type Plan } from '../../shared/geometry/plan-schema';
 import { AppError, notFound } from '../errors';
-import { Hull, PlanDraft, PlanRevision, User } from '../models';
+import { Hull, PlanDraft, PlanRevision } from '../models';
 import { roleMay } from './access';
-import { revisionCacheGet, revisionCachePut, type CachedRevision } from './revision-cache';
+import { userByIdCached } from './users';
+import { revisionCacheGet, revisionCachePut, revisionPlanGet, revisionPlanPut, type CachedRevision } from './revision-cache';
 
-const gzipAsync = promisify(gzip);
+const gzipPromise = promisify(gzip);
+/**
+ * Plans are stored gzip'd at the fastest level: on a 50 KB plan it takes a third of the default level's time
+ * (0.5 against 1.3 ms here) for a stored document about 15 % larger (10.2 against 8.9 KB), and every save and
+ * autosave pays it.
+ */
+const gzipAsync = (json: string) => gzipPromise(json, { level: zlibConstants.Z_BEST_SPEED });
 const gunzipAsync = promisify(gunzip);
 
 interface RevisionRow {
@@ -40,6 +48,9 @@ const toSummary = (r: RevisionRow): RevisionSummary => ({
 function sequelize() {
   return PlanRevision.sequelize!;
 }
+
+/** A DATETIME(3) literal in UTC, the time zone Sequelize stores and reads dates in. */
+const sqlUtc = (d: Date) => d.toISOString().slice(0, 23).replace('T', ' ');
 
 /** Read a stored document: decompress, upgrade if it is of an older schema, validate. */
 async function documentOf(gz: Buffer): Promise<{ json: string; plan: Plan }> {
@@ -76,9 +87,16 @@ export async function planResponseJson(hullId: number, revisionId: number | null
   return `{"revision":${metaJson},"plan":${planJson}}`;
 }
 
-async function planOf(hullId: number, revisionId: number | null, unit: 'mm' | 'ftin'): Promise<Plan> {
+/** A revision's plan, read-only (it may be the shared, frozen copy of the parsed-plan cache). */
+async function planOf(hullId: number, revisionId: number | null, unit: 'mm' | 'ftin'): Promise<Readonly<Plan>> {
   if (revisionId === null) return planEmpty(unit);
-  return JSON.parse((await revisionCached(hullId, revisionId)).planJson) as Plan;
+  // The hull check comes first, on every path: revisionCached answers 404 for another hull's revision.
+  const { planJson } = await revisionCached(hullId, revisionId);
+  const hit = revisionPlanGet(revisionId) as Plan | undefined;
+  if (hit) return hit;
+  const plan = JSON.parse(planJson) as Plan;
+  revisionPlanPut(revisionId, plan);
+  return plan;
 }
 
 /** The revisions of a hull, newest first. */
@@ -147,48 +165,46 @@ export async function revisionSave(req: SaveRequest, transaction?: Transaction):
   const documentGz = await gzipAsync(json);
 
   const documentBytes = Buffer.byteLength(json);
-  const run = async (t: Transaction): Promise<RevisionSummary> => {
-    // Lock the hull row first. Without it, two saves each take a shared lock on it (the foreign-key check
-    // of the insert) and then both want it exclusively for the pointer: a deadlock instead of a clean 409.
-    const [locked] = await sequelize().query<{ latest_revision_id: number | null }>('SELECT latest_revision_id FROM hulls WHERE id = ? FOR UPDATE', {
-      replacements: [req.hullId],
-      type: QueryTypes.SELECT,
-      transaction: t,
-    });
-    if (!locked || locked.latest_revision_id !== req.baseRevisionId) throw staleError(null);
-    const row = await PlanRevision.create(
-      { hullId: req.hullId, baseRevisionId: req.baseRevisionId, authorId: req.authorId, summary, schemaVersion: PLAN_SCHEMA_VERSION, documentGz, documentBytes },
-      { transaction: t },
-    );
-    const [result, meta] = (await sequelize().query('UPDATE hulls SET latest_revision_id = ?, updated_at = NOW(3) WHERE id = ? AND latest_revision_id <=> ?', {
-      replacements: [row.id, req.hullId, req.baseRevisionId],
-      transaction: t,
-    })) as [{ affectedRows?: number } | undefined, { affectedRows?: number } | number | undefined];
-    const affected = result?.affectedRows ?? (typeof meta === 'number' ? meta : meta?.affectedRows) ?? 0;
-    if (affected !== 1) throw staleError(null);
-    const author = await User.findByPk(req.authorId, { attributes: ['displayName'], transaction: t });
-    return {
-      id: row.id,
-      hullId: req.hullId,
-      baseRevisionId: req.baseRevisionId,
-      authorId: req.authorId,
-      authorName: author?.displayName ?? '',
-      summary,
-      createdAt: row.createdAt.toISOString(),
-      bytes: documentBytes,
-    };
-  };
+  const author = await userByIdCached(req.authorId);
+  // Written by us, in UTC as Sequelize reads it back, so the answer can carry it without reading the row.
+  const createdAt = new Date();
   let revision: RevisionSummary;
   try {
-    revision = transaction ? await run(transaction) : await sequelize().transaction(run);
+    revision = await connectorTransaction(sequelize(), transaction, async (connection) => {
+      // Sent together and run in this order on one connection. The hull row is locked first: without it, two
+      // saves each take a shared lock on it (the foreign-key check of the insert) and then both want it
+      // exclusively for the pointer, a deadlock instead of a clean 409. The pointer moves only if it is still
+      // the base; LAST_INSERT_ID() is the revision just inserted on this connection.
+      const [locked, inserted, moved] = await Promise.all([
+        connection.query('SELECT latest_revision_id FROM hulls WHERE id = ? FOR UPDATE', [req.hullId]) as Promise<{ latest_revision_id: number | null }[]>,
+        connection.query(
+          'INSERT INTO plan_revisions (hull_id, base_revision_id, author_id, summary, schema_version, document_gz, document_bytes, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)',
+          [req.hullId, req.baseRevisionId, req.authorId, summary, PLAN_SCHEMA_VERSION, documentGz, documentBytes, sqlUtc(createdAt)],
+        ) as Promise<WriteResult>,
+        connection.query('UPDATE hulls SET latest_revision_id = LAST_INSERT_ID(), updated_at = ? WHERE id = ? AND latest_revision_id <=> ?', [sqlUtc(createdAt), req.hullId, req.baseRevisionId]) as Promise<WriteResult>,
+        // The saver's draft is now a revision: gone in the same commit.
+        connection.query('DELETE FROM plan_drafts WHERE hull_id = ? AND user_id = ?', [req.hullId, req.authorId]),
+      ]);
+      if (locked[0]?.latest_revision_id !== req.baseRevisionId || moved.affectedRows !== 1) throw staleError(null);
+      return {
+        id: Number(inserted.insertId),
+        hullId: req.hullId,
+        baseRevisionId: req.baseRevisionId,
+        authorId: req.authorId,
+        authorName: author?.displayName ?? '',
+        summary,
+        createdAt: createdAt.toISOString(),
+        bytes: documentBytes,
+      };
+    });
   } catch (err) {
     if (err instanceof AppError && err.code === 'stale_revision') throw staleError(await latestSummary(req.hullId));
     throw err;
   }
   // Only after the commit: ids of rolled-back inserts are never reused, but an entry must not precede its row.
   revisionCachePut(revision.id, { metaJson: JSON.stringify(revision), planJson: json });
-  // The saver's draft is now a revision.
-  await PlanDraft.destroy({ where: { hullId: req.hullId, userId: req.authorId }, transaction });
+  // Frozen from here on: the next save from this revision compares against this very object.
+  revisionPlanPut(revision.id, plan);
   return { revision, changes };
 }
 

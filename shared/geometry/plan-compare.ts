@@ -30,7 +30,33 @@ function leaves(value: Json, prefix: string, out: Map<string, Json>): Map<string
   return out;
 }
 
-const same = (a: Json, b: Json) => JSON.stringify(a) === JSON.stringify(b);
+/**
+ * Equal as JSON documents: what JSON.stringify would write for both, compared without writing it (on a save
+ * that was two serialisations of the whole plan). A property holding `undefined` counts as absent, as
+ * JSON.stringify leaves it out; the order of an object's keys does not matter, since it means nothing in the
+ * plan. Plans are JSON data: no NaN, no Infinity, no cycles.
+ */
+function same(a: Json, b: Json): boolean {
+  if (a === b) return true;
+  if (a === null || b === null || typeof a !== 'object' || typeof b !== 'object') return false;
+  if (Array.isArray(a) !== Array.isArray(b)) return false;
+  if (Array.isArray(a)) {
+    const bs = b as Json[];
+    if (a.length !== bs.length) return false;
+    for (let i = 0; i < a.length; i++) if (!same(a[i] ?? null, bs[i] ?? null)) return false;
+    return true;
+  }
+  const ao = a as Record<string, Json>;
+  const bo = b as Record<string, Json>;
+  let defined = 0;
+  for (const k in ao) {
+    if (ao[k] === undefined) continue;
+    defined++;
+    if (!same(ao[k], bo[k])) return false;
+  }
+  for (const k in bo) if (bo[k] !== undefined) defined--;
+  return defined === 0;
+}
 
 function compareLeaves(area: PlanChange['area'], kind: PlanChange['kind'], prefix: string, label: string, a: Json, b: Json, out: PlanChange[]) {
   const before = leaves(a, prefix, new Map());

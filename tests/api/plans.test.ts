@@ -138,8 +138,11 @@ describe('history', () => {
     const changed = withCell(demoPlan(), 'ln-chine', 'st-3', { y: 750, z: 162 });
     const r2 = (await save(owner, hullId, r1, changed)).body.revision;
     expect(r2.summary).toBe('1 offset changed');
-    const list = (await owner.get(`/api/hulls/${hullId}/plan/revisions`)).body.revisions.map((r: { id: number }) => r.id);
-    expect(list).toEqual([r2.id, r1]);
+    const listed = (await owner.get(`/api/hulls/${hullId}/plan/revisions`)).body.revisions;
+    expect(listed.map((r: { id: number }) => r.id)).toEqual([r2.id, r1]);
+    // What the save answered is what the row holds: the list reads it back from the table, not from a cache.
+    expect(listed[0]).toEqual(r2);
+    expect(r2.authorName).not.toBe('');
 
     const compare = await owner.get(`/api/hulls/${hullId}/plan/compare?from=${r1}&to=${r2.id}`);
     expect(compare.body.changes).toEqual([

@@ -54,6 +54,24 @@ describe('planCompare', () => {
     expect(planChangeSummary(changes)).toBe('1 station change, 1 offset, 1 setting, 1 part change changed');
   });
 
+  it('compares as JSON documents do: key order and undefined properties are no change, a value deep in a part is one', () => {
+    // Analytic cases of JSON equality (RFC 8259: an object is an unordered set of members; JSON.stringify
+    // leaves out a property whose value is undefined).
+    const a = demoPlan();
+    const reordered = demoPlan();
+    const part = reordered.parts.parts[0];
+    reordered.parts.parts[0] = Object.assign(Object.fromEntries(Object.entries(part).reverse()), { notAField: undefined }) as unknown as typeof part;
+    expect(planCompare(a, reordered)).toEqual([]);
+    expect(planTouches(a, reordered)).toEqual({ lines: false, parts: false });
+
+    const deeper = demoPlan();
+    deeper.parts.parts[0].layers[1].thicknessMm = 12;
+    expect(planCompare(a, deeper).map((c) => [c.path, c.before, c.after])).toEqual([[`parts.parts.${part.id}.layers.1.thicknessMm`, 9, 12]]);
+    const dropped = demoPlan();
+    dropped.parts.parts[0].layers.pop();
+    expect(planCompare(a, dropped).map((c) => c.path)).toContain(`parts.parts.${part.id}.layers.1.thicknessMm`);
+  });
+
   it('finds nothing between equal plans, and says so', () => {
     expect(planCompare(demoPlan(), demoPlan())).toEqual([]);
     expect(planTouches(demoPlan(), demoPlan())).toEqual({ lines: false, parts: false });
