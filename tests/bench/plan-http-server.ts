@@ -4,6 +4,7 @@
  * about half of the thread, and every figure measured both). Builds the app exactly as server/index.ts
  * does, adds the constant route, makes the hulls and the signed-in session, and tells the parent over IPC.
  */
+import express from 'express';
 import type { AddressInfo } from 'node:net';
 import { createApp } from '../../server/app';
 import { configFromEnv } from '../../server/config';
@@ -20,6 +21,8 @@ const BENCH_ORIGIN = 'http://bench.loftbench.test';
 /** What the server process tells the load generator once it is ready. */
 export interface BenchServerReady {
   base: string;
+  /** A bare Express app in this process, no middleware: the floor the bench compares against. */
+  bareBase: string;
   /** The Origin the server accepts changing requests from. */
   origin: string;
   cookie: string;
@@ -49,6 +52,13 @@ async function main() {
   const server = app.listen(0, '127.0.0.1');
   await new Promise((r) => server.once('listening', r));
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const bare = express();
+  bare.get('/bare/constant', (_req, res) => {
+    res.json({ ok: true });
+  });
+  const bareServer = bare.listen(0, '127.0.0.1');
+  await new Promise((r) => bareServer.once('listening', r));
+  const bareBase = `http://127.0.0.1:${(bareServer.address() as AddressInfo).port}`;
 
   const user = await userCreate({ email: `bench-${Date.now()}@example.test`, displayName: 'Bench', password: 'bench password 1' }, 10);
   const hull = await hullCreate(user.id, { name: 'Bench hull', units: 'mm', notes: '' });
@@ -60,10 +70,16 @@ async function main() {
   const login = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json', origin: BENCH_ORIGIN }, body: JSON.stringify({ email: user.email, password: 'bench password 1' }) });
   const cookie = login.headers.get('set-cookie')!.split(';')[0]!;
 
-  const ready: BenchServerReady = { base, origin: BENCH_ORIGIN, cookie, readHullId: hull.id, writerHullIds, plan };
+  const ready: BenchServerReady = { base, bareBase, origin: BENCH_ORIGIN, cookie, readHullId: hull.id, writerHullIds, plan };
+  // The load generator asks for this process's CPU time around each run: CPU per request is the figure that
+  // does not depend on what else the machine's two cores are doing.
+  process.on('message', (m) => {
+    if (m === 'cpu') process.send!({ cpu: process.cpuUsage() });
+  });
   process.send!(ready);
   process.on('disconnect', () => {
     server.close();
+    bareServer.close();
     void sequelize.close().finally(() => process.exit(0));
   });
 }

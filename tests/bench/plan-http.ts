@@ -2,7 +2,8 @@
  * Benchmark (reports, never gates): reading the latest plan of a hull with a ~50 KB document through the
  * whole middleware stack with a signed-in session, beside a constant route of the same server behind the
  * same middleware; then saving revisions from 10 concurrent writers. Run by `npm run bench`, which starts
- * a throw-away MariaDB with durable settings (innodb_flush_log_at_trx_commit=1).
+ * a throw-away MariaDB with durable settings (innodb_flush_log_at_trx_commit=1). BENCH_SECONDS sets the length
+ * of each run (default 10); BENCH_ONLY=read or BENCH_ONLY=save runs one half, e.g. to profile it.
  */
 import autocannon from 'autocannon';
 import { fork } from 'node:child_process';
@@ -21,7 +22,16 @@ async function startServer() {
     child.once('message', (m) => resolve(m as BenchServerReady));
     child.once('exit', (code) => reject(new Error(`the bench server stopped (exit ${code})`)));
   });
-  return { ready, stop: () => child.disconnect() };
+  /** The server process's CPU time so far (user + system), in milliseconds. */
+  const cpuMs = () =>
+    new Promise<number>((resolve) => {
+      child.once('message', (m) => {
+        const { cpu } = m as { cpu: NodeJS.CpuUsage };
+        resolve((cpu.user + cpu.system) / 1000);
+      });
+      child.send('cpu');
+    });
+  return { ready, cpuMs, stop: () => child.disconnect() };
 }
 
 function percentile(values: number[], p: number) {
@@ -29,21 +39,49 @@ function percentile(values: number[], p: number) {
   return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
 }
 
-async function main() {
-  const { ready, stop } = await startServer();
-  const { base, cookie, plan, origin } = ready;
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+const ONLY = process.env.BENCH_ONLY ?? '';
+
+type CpuMs = () => Promise<number>;
+
+/** Run `work`, which makes `count()` requests, and say how many milliseconds of server CPU each took. */
+async function cpuPer<T>(cpuMs: CpuMs, work: () => Promise<T>, count: (r: T) => number): Promise<[T, number]> {
+  const before = await cpuMs();
+  const result = await work();
+  return [result, ((await cpuMs()) - before) / Math.max(1, count(result))];
+}
+
+const line = (name: string, [r, cpu]: [autocannon.Result, number]) =>
+  `${name.padEnd(36)} ${r.requests.average.toFixed(0).padStart(7)} req/s  p50 ${r.latency.p50} ms  p99 ${r.latency.p99} ms  server CPU ${cpu.toFixed(2)} ms/req  non-2xx ${r.non2xx}  errors ${r.errors}`;
+
+/** 50 connections reading one path with the signed-in cookie; full 200 responses only count. */
+async function readRuns(ready: BenchServerReady, cpuMs: CpuMs): Promise<string[]> {
+  const { base, cookie } = ready;
   const planBytes = (await (await fetch(`${base}/api/hulls/${ready.readHullId}/plan`, { headers: { cookie } })).text()).length;
+  const run = (url: string) => cpuPer(cpuMs, () => autocannon({ url, connections: 50, duration: SECONDS, headers: { cookie } }), (r) => r.requests.total);
+  await run(`${base}/bench/constant`); // warm-up of both paths
+  // The floor: the same Express, in the same server process, with no middleware at all. Its p99 at 50
+  // connections is what this machine allows any Express route, before any of Loftbench's work.
+  const bare = await run(`${ready.bareBase}/bare/constant`);
+  const constant = await run(`${base}/bench/constant`);
+  const read = await run(`${base}/api/hulls/${ready.readHullId}/plan`);
+  return [
+    `plan read benchmark (50 connections, ${SECONDS} s each, plan response ${planBytes} bytes)`,
+    line('bare Express route, no middleware', bare),
+    line('constant route', constant),
+    line('latest plan', read),
+    `plan read / constant route: ${((100 * read[0].requests.average) / constant[0].requests.average).toFixed(1)} %  (target at least 25 %, p99 under 30 ms)`,
+  ];
+}
 
-  const run = (path: string) =>
-    autocannon({ url: `${base}${path}`, connections: 50, duration: Number(process.env.BENCH_SECONDS ?? 10), headers: { cookie } });
-  await run('/bench/constant'); // warm-up of both paths
-  const constant = await run('/bench/constant');
-  const read = await run(`/api/hulls/${ready.readHullId}/plan`);
-
+/** 10 writers, each chaining revisions on its own hull for SECONDS. */
+async function saveRuns(ready: BenchServerReady, cpuMs: CpuMs): Promise<string[]> {
+  const { base, cookie, plan, origin } = ready;
   const writers = ready.writerHullIds.map((hullId) => ({ hullId, base: null as number | null }));
   const latencies: number[] = [];
-  const until = Date.now() + Number(process.env.BENCH_SECONDS ?? 10) * 1000;
+  const until = Date.now() + SECONDS * 1000;
   let failures = 0;
+  const cpuBefore = await cpuMs();
   await Promise.all(
     writers.map(async (w, k) => {
       for (let n = 0; Date.now() < until; n += 1) {
@@ -58,20 +96,14 @@ async function main() {
       }
     }),
   );
+  const cpu = ((await cpuMs()) - cpuBefore) / Math.max(1, latencies.length);
+  return [`save revision, 10 writers: ${latencies.length} saves, p50 ${percentile(latencies, 50).toFixed(1)} ms, p95 ${percentile(latencies, 95).toFixed(1)} ms, server CPU ${cpu.toFixed(2)} ms/save, failures ${failures}  (target p95 under 50 ms)`];
+}
 
-  const line = (name: string, r: autocannon.Result) =>
-    `${name.padEnd(28)} ${r.requests.average.toFixed(0).padStart(7)} req/s  p50 ${r.latency.p50} ms  p99 ${r.latency.p99} ms  non-2xx ${r.non2xx}  errors ${r.errors}`;
-  process.stdout.write(
-    [
-      '',
-      `plan read benchmark (50 connections, ${process.env.BENCH_SECONDS ?? 10} s each, plan response ${planBytes} bytes)`,
-      line('constant route', constant),
-      line('latest plan', read),
-      `plan read / constant route: ${((100 * read.requests.average) / constant.requests.average).toFixed(1)} %  (target at least 25 %, p99 under 30 ms)`,
-      `save revision, 10 writers: ${latencies.length} saves, p50 ${percentile(latencies, 50).toFixed(1)} ms, p95 ${percentile(latencies, 95).toFixed(1)} ms, failures ${failures}  (target p95 under 50 ms)`,
-      '',
-    ].join('\n'),
-  );
+async function main() {
+  const { ready, cpuMs, stop } = await startServer();
+  const lines = ['', ...(ONLY === 'save' ? [] : await readRuns(ready, cpuMs)), ...(ONLY === 'read' ? [] : await saveRuns(ready, cpuMs)), ''];
+  process.stdout.write(lines.join('\n'));
   stop();
 }
 
