@@ -1,14 +1,14 @@
 #!/usr/bin/env node
 // `npm run bench`: the benchmarks under tests/bench. They print figures and never pass or fail. The HTTP
 // ones run against a throw-away MariaDB with the same durable settings as npm start.
-import { mkdtempSync, rmSync } from 'node:fs';
-import os from 'node:os';
+import { rmSync } from 'node:fs';
 import path from 'node:path';
 import { buildClient, root, setUp, tsxNode } from './lib/setup.mjs';
 import { secret } from './lib/mariadb.mjs';
+import { scratchDataRoot } from './lib/scratch.mjs';
 import { aptInstall, freePort, run, say, which } from './lib/sh.mjs';
 
-const dataRoot = mkdtempSync(path.join(os.tmpdir(), 'loftbench-bench-'));
+const dataRoot = await scratchDataRoot('loftbench-bench-');
 const { env, stop } = await setUp({ dataRoot, dbPort: await freePort(), database: 'loftbench_bench', dbPassword: secret(), sessionSecret: secret(32), mode: 'test', seedDemo: false });
 try {
   say('Geometry and export benchmarks (vitest bench)...');

@@ -3,12 +3,12 @@
 // ports), so it never collides with a running `npm start`; then the whole suite (unit, components, API on
 // the real database, browser tests in Debian's Chromium); then it stops what it started.
 // Extra arguments go to vitest, e.g. `npm test -- --project api`.
-import { existsSync, mkdtempSync, readFileSync, rmSync, mkdirSync } from 'node:fs';
-import os from 'node:os';
+import { existsSync, readFileSync, rmSync, mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { buildClient, root, setUp } from './lib/setup.mjs';
 import { ensureDependencies } from './lib/deps.mjs';
 import { secret } from './lib/mariadb.mjs';
+import { scratchDataRoot } from './lib/scratch.mjs';
 import { aptInstall, fail, freePort, run, say, spawnChild, which } from './lib/sh.mjs';
 
 // Static checks first: they need no database and fail in seconds.
@@ -23,7 +23,7 @@ if (!process.env.LOFTBENCH_SKIP_STATIC) try {
   fail(`Static checks failed: ${error.message}`);
 }
 
-const dataRoot = mkdtempSync(path.join(os.tmpdir(), 'loftbench-test-'));
+const dataRoot = await scratchDataRoot('loftbench-test-');
 const dbPort = await freePort();
 const { env, stop } = await setUp({
   dataRoot,
@@ -41,11 +41,17 @@ const cleanUp = async () => {
   rmSync(dataRoot, { recursive: true, force: true });
 };
 
-if (!which('chromium')) aptInstall(['chromium'], 'Chromium (for the browser tests)');
-// The PDF tests render pages with poppler and measure the calibration square on the image.
-if (!which('pdftoppm')) aptInstall(['poppler-utils'], 'poppler-utils (pdftoppm, for the PDF tests)');
 const clientDir = path.join(dataRoot, 'client');
-buildClient(clientDir, env);
+try {
+  if (!which('chromium')) aptInstall(['chromium'], 'Chromium (for the browser tests)');
+  // The PDF tests render pages with poppler and measure the calibration square on the image.
+  if (!which('pdftoppm')) aptInstall(['poppler-utils'], 'poppler-utils (pdftoppm, for the PDF tests)');
+  buildClient(clientDir, env);
+} catch (error) {
+  // A failed install or build (or Ctrl-C during it) must not leave the database running.
+  await cleanUp();
+  throw error;
+}
 const outputDir = path.join(root, 'test-output');
 mkdirSync(outputDir, { recursive: true });
 
