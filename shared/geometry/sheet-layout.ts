@@ -164,6 +164,19 @@ export function sheetLayoutWith(layout: SheetLayout, placement: SheetLayoutPlace
 }
 
 /**
+ * The arrangement with one more sheet, of the piece's ply, numbered after the last, and where the piece
+ * would lie on it: in the corner inside the edge margin, turned as it was. How a builder starts a sheet by
+ * hand; a sheet the move leaves empty is dropped when the arrangement is tidied for saving.
+ */
+export function sheetLayoutNewSheetFor(layout: SheetLayout, piece: Pick<SheetLayoutPiece, 'id' | 'plyThicknessMm'>, rotated: boolean): { layout: SheetLayout; placement: SheetLayoutPlacement } {
+  const sheetNo = layout.sheets.reduce((last, s) => Math.max(last, s.sheetNo), 0) + 1;
+  return {
+    layout: { ...layout, sheets: [...layout.sheets, { sheetNo, plyThicknessMm: piece.plyThicknessMm }] },
+    placement: { pieceId: piece.id, sheetNo, x: layout.edgeMarginMm, y: layout.edgeMarginMm, rotated },
+  };
+}
+
+/**
  * The rules a move would break that concern the moved piece (its own place, its clashes with others):
  * what the sheet view refuses a drag or a turn with. Empty: the move keeps every rule it could break.
  */

@@ -98,14 +98,28 @@ describe('Print shop in the browser', () => {
     await page.getByText('That move is refused').waitFor();
     await rig.screenshot(page, 'print-shop-02-sheet-refused');
     await page.getByRole('img', { name: /^Plywood sheets/ }).screenshot({ path: path.join(outputDir, 'print-shop-02b-sheets-close.png') });
-    const kept = await placeOf(page);
+
+    // Start a new sheet for it: one more sheet, the piece in its corner inside the edge margin.
+    const sheetsLabel = async () => (await page.getByRole('img', { name: /^Plywood sheets/ }).getAttribute('aria-label'))!;
+    const sheetCount = async () => Number(/(\d+) sheets/.exec(await sheetsLabel())![1]);
+    const countBefore = await sheetCount();
+    await page.getByLabel('Sheet', { exact: true }).selectOption('new');
+    expect(await sheetCount()).toBe(countBefore + 1);
+    const margin = now.layout.edgeMarginMm;
+    expect(await placeOf(page)).toContain(`sheet ${countBefore + 1}, box corner at ${margin} mm across, ${margin} mm along`);
+    const kept = (await placeOf(page)).replace(/sheet \d+, /, '');
 
     await page.getByRole('button', { name: 'Save the arrangement' }).click();
     await page.getByText('Arrangement saved: the cut list PDF and CSV use it.').waitFor();
     await page.reload();
     await page.getByText(/Arranged by hand, saved/).waitFor();
     await page.getByLabel('Piece', { exact: true }).selectOption('Transom / layer 1 / piece 1');
-    expect(await placeOf(page)).toBe(kept);
+    // Saved sheets are renumbered (thinnest ply first), so the place is compared without its sheet number;
+    // the piece is alone on its sheet.
+    expect((await placeOf(page)).replace(/sheet \d+, /, '')).toBe(kept);
+    const saved = await page.evaluate(async (p) => (await fetch(`/api${p}/cut-list/arrangement`)).json(), hullPath);
+    const own = saved.layout.placements.find((pl: { pieceId: string }) => pl.pieceId === 'Transom / layer 1 / piece 1');
+    expect(saved.layout.placements.filter((pl: { sheetNo: number }) => pl.sheetNo === own.sheetNo)).toHaveLength(1);
     await page.getByRole('button', { name: 'Go back to the automatic arrangement' }).scrollIntoViewIfNeeded();
     await rig.screenshot(page, 'print-shop-03-saved');
     // Leave the demo hull as it was for the other browser tests.

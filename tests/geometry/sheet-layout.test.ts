@@ -7,7 +7,9 @@ import {
   sheetGrainAllows,
   sheetLayoutIssues,
   sheetLayoutMoveIssues,
+  sheetLayoutNewSheetFor,
   sheetLayoutTidied,
+  sheetLayoutWith,
   sheetPieceBox,
 } from '../../shared/geometry/sheet-layout';
 
@@ -127,5 +129,27 @@ describe('sheetLayoutTidied', () => {
     const t = sheetLayoutTidied(l);
     expect(t.sheets).toEqual([{ sheetNo: 1, plyThicknessMm: 6 }, { sheetNo: 2, plyThicknessMm: 9 }]);
     expect(t.placements.map((p) => [p.pieceId, p.sheetNo])).toEqual([['a', 1], ['b', 2]]);
+  });
+});
+
+describe('sheetLayoutNewSheetFor', () => {
+  it('adds a sheet of the piece’s ply after the last and puts the piece in its corner inside the edge margin', () => {
+    // Analytic case: both pieces on sheet 1 of two; b goes to a new sheet 3 at the 10 mm margin corner.
+    const l = layout([at('a', 10, 10), at('b', 500, 10)], { edgeMarginMm: 10 });
+    const { layout: grown, placement } = sheetLayoutNewSheetFor(l, pieces[1]!, false);
+    expect(grown.sheets).toEqual([...l.sheets, { sheetNo: 3, plyThicknessMm: 6 }]);
+    expect(placement).toEqual({ pieceId: 'b', sheetNo: 3, x: 10, y: 10, rotated: false });
+    expect(sheetLayoutMoveIssues(grown, pieces, placement)).toEqual([]);
+    const moved = sheetLayoutWith(grown, placement);
+    expect(sheetLayoutIssues(moved, pieces)).toEqual([]);
+    // Saved, the empty sheet 2 goes and the new one becomes sheet 2.
+    expect(sheetLayoutTidied(moved).placements.map((p) => [p.pieceId, p.sheetNo])).toEqual([['a', 1], ['b', 2]]);
+  });
+
+  it('keeps the grain rule: a piece whose grain needs the turn is refused unturned on the new sheet', () => {
+    const grainAcross: SheetLayoutPiece = { id: 'c', widthMm: 300, heightMm: 200, plyThicknessMm: 6, grain: 'y' };
+    const l = layout([at('a', 0, 0), at('b', 500, 0), at('c', 0, 400, true)]);
+    const { layout: grown, placement } = sheetLayoutNewSheetFor(l, grainAcross, false);
+    expect(sheetLayoutMoveIssues(grown, [...pieces, grainAcross], placement).map((i) => i.code)).toEqual(['layout-grain']);
   });
 });

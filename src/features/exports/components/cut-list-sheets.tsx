@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { ArrowDown, ArrowLeft, ArrowRight, ArrowUp, RotateCw } from 'lucide-react';
 import type { ArrangementResponse } from '../../../../shared/api/exports';
-import { type SheetLayout, type SheetLayoutPlacement, sheetLayoutIssues, sheetLayoutMoveIssues, sheetLayoutWith } from '../../../../shared/geometry/sheet-layout';
+import { type SheetLayout, type SheetLayoutPlacement, sheetLayoutIssues, sheetLayoutMoveIssues, sheetLayoutNewSheetFor, sheetLayoutWith } from '../../../../shared/geometry/sheet-layout';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
@@ -13,11 +13,13 @@ import { useSaveArrangement } from '../api/save-arrangement';
 import { SheetView } from './sheet-view';
 
 const STEPS_MM = [1, 10, 100] as const;
+/** The Sheet choice that starts a new sheet for the piece. */
+const NEW_SHEET = 'new';
 
 /**
  * The cut list's pieces on plywood sheets, as the cut list PDF and CSV will print them. Owner and
  * builder move a piece by dragging it (or with the buttons), turn it a quarter turn, or send it to
- * another sheet; every move is checked at once with the same rules the server checks a save with
+ * another sheet or a new one; every move is checked at once with the same rules the server checks a save with
  * (kerf between pieces, inside the sheet, grain, ply), and a move that breaks one is refused, saying which.
  */
 export function CutListSheets({ hullId, canArrange }: { hullId: number; canArrange: boolean }) {
@@ -49,14 +51,15 @@ function SheetEditor({ hullId, data, canArrange }: { hullId: number; data: Arran
   const standing = new Set(sheetLayoutIssues(layout, pieces).map((i) => i.pieceId));
   const flagged = dragFlag ? new Set([...standing, dragFlag]) : standing;
 
-  const move = (placement: SheetLayoutPlacement): boolean => {
+  // `base`: the arrangement the move starts from, when it is not the one shown (a new sheet added for it).
+  const move = (placement: SheetLayoutPlacement, base: SheetLayout = layout): boolean => {
     setDragFlag(null);
-    const issues = sheetLayoutMoveIssues(layout, pieces, placement);
+    const issues = sheetLayoutMoveIssues(base, pieces, placement);
     if (issues.length) {
       setRefusal(issues[0]!.message);
       return false;
     }
-    setLayout((l) => sheetLayoutWith(l, placement));
+    setLayout(sheetLayoutWith(base, placement));
     setDirty(true);
     setRefusal(null);
     save.reset();
@@ -66,6 +69,12 @@ function SheetEditor({ hullId, data, canArrange }: { hullId: number; data: Arran
   const nudge = (dx: number, dy: number) => selected && move({ ...selected, x: selected.x + dx, y: selected.y + dy });
   const piece = selected ? byId.get(selected.pieceId) : undefined;
   const sameplySheets = piece ? layout.sheets.filter((s) => s.plyThicknessMm === piece.plyThicknessMm) : [];
+  const toSheet = (value: string) => {
+    if (!selected || !piece) return;
+    if (value !== NEW_SHEET) return void move({ ...selected, sheetNo: Number(value) });
+    const grown = sheetLayoutNewSheetFor(layout, piece, selected.rotated);
+    move(grown.placement, grown.layout);
+  };
 
   return (
     <div className="flex flex-col gap-4">
@@ -116,15 +125,14 @@ function SheetEditor({ hullId, data, canArrange }: { hullId: number; data: Arran
               <RotateCw aria-hidden="true" className="size-5" />
               Turn 90°
             </Button>
-            {sameplySheets.length > 1 && (
-              <SelectField label="Sheet" value={String(selected.sheetNo)} onChange={(e) => move({ ...selected, sheetNo: Number(e.target.value) })}>
-                {sameplySheets.map((s) => (
-                  <option key={s.sheetNo} value={s.sheetNo}>
-                    Sheet {s.sheetNo}
-                  </option>
-                ))}
-              </SelectField>
-            )}
+            <SelectField label="Sheet" value={String(selected.sheetNo)} onChange={(e) => toSheet(e.target.value)}>
+              {sameplySheets.map((s) => (
+                <option key={s.sheetNo} value={s.sheetNo}>
+                  Sheet {s.sheetNo}
+                </option>
+              ))}
+              <option value={NEW_SHEET}>A new sheet ({piece.plyThicknessMm} mm)</option>
+            </SelectField>
           </>
         )}
       </div>
