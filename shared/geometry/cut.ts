@@ -32,7 +32,7 @@ interface Crossing {
 interface IndexedLoop {
   loop: readonly SectionPoint[];
   /** minY, maxY, minZ, maxZ of each block. */
-  boxes: Float64Array;
+  boxes: number[];
 }
 
 /** Edges per block of an `IndexedLoop`. */
@@ -41,7 +41,8 @@ const LOOP_BLOCK = 16;
 function indexedLoop(loop: readonly SectionPoint[]): IndexedLoop {
   const n = loop.length;
   const blocks = Math.ceil(n / LOOP_BLOCK);
-  const boxes = new Float64Array(4 * blocks);
+  // A plain array, not a typed one: V8 takes a couple of microseconds over each typed array past 64 bytes.
+  const boxes: number[] = [];
   for (let b = 0; b < blocks; b++) {
     let minY = Infinity;
     let maxY = -Infinity;
@@ -55,12 +56,29 @@ function indexedLoop(loop: readonly SectionPoint[]): IndexedLoop {
       if (p.z < minZ) minZ = p.z;
       if (p.z > maxZ) maxZ = p.z;
     }
-    boxes[4 * b] = minY;
-    boxes[4 * b + 1] = maxY;
-    boxes[4 * b + 2] = minZ;
-    boxes[4 * b + 3] = maxZ;
+    boxes.push(minY, maxY, minZ, maxZ);
   }
   return { loop, boxes };
+}
+
+/**
+ * The box of an indexed loop from its blocks' boxes, or null when it has no points: the same figures as
+ * `polygonBounds` of the loop (every point is in a block), without walking its points again.
+ */
+function indexedBounds(il: IndexedLoop): Box | null {
+  const bb = il.boxes;
+  if (bb.length === 0) return null;
+  let minY = Infinity;
+  let maxY = -Infinity;
+  let minZ = Infinity;
+  let maxZ = -Infinity;
+  for (let b = 0; b < bb.length; b += 4) {
+    if (bb[b]! < minY) minY = bb[b]!;
+    if (bb[b + 1]! > maxY) maxY = bb[b + 1]!;
+    if (bb[b + 2]! < minZ) minZ = bb[b + 2]!;
+    if (bb[b + 3]! > maxZ) maxZ = bb[b + 3]!;
+  }
+  return { minY, maxY, minZ, maxZ };
 }
 
 /** Even-odd test of p against the loop (a ray toward +y). */
@@ -171,7 +189,8 @@ function bitten(loop: readonly SectionPoint[], bites: readonly Bite[]): SectionP
   const out: SectionPoint[] = [];
   const push = (p: SectionPoint): void => {
     // A bite entered or left exactly at a vertex gives that point twice: once is enough.
-    const q = out[out.length - 1];
+    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
+    const q = out.length > 0 ? out[out.length - 1] : undefined;
     if (!q || q.y !== p.y || q.z !== p.z) out.push(p);
   };
   for (let b = 0; b < order.length; b++) {
@@ -216,9 +235,9 @@ export function cutShapes(regions: readonly Shape[], cutters: readonly SectionPo
     for (let b = a + 1; b < boxes.length; b++) if (boxesMeet(boxes[a]!, boxes[b]!) && loopsMeet(cutters[a]!, cutters[b]!, boxes[b]!)) return clipped(regions, cutters);
   }
   const out: Shape[] = regions.map((r) => ({ outer: r.outer, holes: [...r.holes] }));
-  const outerBoxes = out.map((r) => polygonBounds(r.outer)!);
   // Indexed once for all the cutters (holes as given: a cutter that reaches one goes to clipper).
   const outers = regions.map((r) => indexedLoop(r.outer));
+  const outerBoxes = outers.map((il) => indexedBounds(il)!);
   const holes = regions.map((r) => r.holes.map(indexedLoop));
   const bites: Bite[][] = out.map(() => []);
   for (let c = 0; c < cutters.length; c++) {

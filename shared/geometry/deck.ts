@@ -68,21 +68,15 @@ export function deckLineAt(hull: BuiltHull, section: Section, clearanceMm: numbe
 
   // Reach a little past the sheer so the underside is sure to meet the hull edge.
   const yEnd = here.ys * 1.02 + 5;
-  // The sampling has the height at every sample already: kept, so each is worked out once (every camber
-  // height validates the camber, and the deck line is drawn on every face of every part).
-  const heights = new Map<number, number>();
-  const hereAt = (y: number): number => {
-    let z = heights.get(y);
-    if (z === undefined) heights.set(y, (z = heightOf(here, y)));
-    return z;
-  };
-  const ys = deckSamples(hereAt, 0, yEnd, toleranceMm);
+  // The sampling has the height at every sample already: returned beside it, so each is worked out once
+  // (every camber height validates the camber, and the deck line is drawn on every face of every part).
+  const { ys, zs } = deckSamples((y) => heightOf(here, y), 0, yEnd, toleranceMm);
   const t = deck.thicknessMm + clearanceMm;
   const top: EdgePoint[] = [];
   const underside: EdgePoint[] = [];
   let girth = 0;
   ys.forEach((y, k) => {
-    const z = hereAt(y);
+    const z = zs[k]!;
     const m = slopeOf(here, y);
     const len = Math.sqrt(1 + m * m);
     const ny = -m / len;
@@ -90,7 +84,7 @@ export function deckLineAt(hull: BuiltHull, section: Section, clearanceMm: numbe
     const dZdx = fore && aft && dx > 0 ? (heightOf(fore, y) - heightOf(aft, y)) / dx : 0;
     const rate = dZdx * nz;
     const setIn = t * Math.sqrt(1 + rate * rate);
-    if (k > 0) girth += Math.sqrt((y - ys[k - 1]!) ** 2 + (z - hereAt(ys[k - 1]!)) ** 2);
+    if (k > 0) girth += Math.sqrt((y - ys[k - 1]!) ** 2 + (z - zs[k - 1]!) ** 2);
     const bevel = Math.atan(Math.abs(rate));
     // Literals, not a shared part spread into each (V8's slow path for spreads).
     top.push({ y, z, setInMm: 0, ny, nz, rate, bevel, girthMm: girth, edge: 'deck', corner: false });
@@ -101,22 +95,34 @@ export function deckLineAt(hull: BuiltHull, section: Section, clearanceMm: numbe
   return { x, halfBeamMm: here.hb, top, underside };
 }
 
-/** Half-breadths from y0 to y1 at which the deck curve is within `tol` (mm) of its chords (midpoint test, at least 8 spans). */
-function deckSamples(f: (y: number) => number, y0: number, y1: number, tol: number): number[] {
-  const out: number[] = [y0];
+/**
+ * Half-breadths `ys` from y0 to y1 at which the deck curve is within `tol` (mm) of its chords (midpoint test,
+ * at least 8 spans), with the height `zs` (mm) at each: f is called once per half-breadth (a span's start is
+ * the last one's end, the same number), which a map of heights keyed by half-breadth did at several times the cost.
+ */
+function deckSamples(f: (y: number) => number, y0: number, y1: number, tol: number): { ys: number[]; zs: number[] } {
+  const ys: number[] = [y0];
+  const f0 = f(y0);
+  const zs: number[] = [f0];
   const span = (a: number, fa: number, b: number, fb: number, depth: number): void => {
     const m = (a + b) / 2;
     const fm = f(m);
     if (depth < 16 && Math.abs(fm - (fa + fb) / 2) > tol) {
       span(a, fa, m, fm, depth + 1);
       span(m, fm, b, fb, depth + 1);
-    } else out.push(b);
+    } else {
+      ys.push(b);
+      zs.push(fb);
+    }
   };
   const n = 8;
+  let fa = f0;
   for (let i = 0; i < n; i++) {
     const a = y0 + ((y1 - y0) * i) / n;
     const b = y0 + ((y1 - y0) * (i + 1)) / n;
-    span(a, f(a), b, f(b), 0);
+    const fb = f(b);
+    span(a, fa, b, fb, 0);
+    fa = fb;
   }
-  return out;
+  return { ys, zs };
 }

@@ -38,7 +38,8 @@ export function bevelMarksAlong(runs: readonly ContactRun[], frame: FrameSiding,
       if (insideLoop(cutters[k]!, p)) return;
     }
     const m = bevelMarkOf(p, frame);
-    const last = out[out.length - 1];
+    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
+    const last = out.length > 0 ? out[out.length - 1] : undefined;
     const g = side === 'port' ? negated(m.girthMm) : m.girthMm;
     if (last && last.side === side && last.edge === m.edge && Math.abs(last.girthMm - g) < 1e-9 && last.bevel === m.bevel) return;
     // Field by field (an overriding spread is V8's slow path); + 0 turns a -0 (a normal straight up on the

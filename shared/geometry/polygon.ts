@@ -255,7 +255,8 @@ function loopSegments(loop: Loop, loopIndex: number, tol: number): Seg[] {
 function dedupe(loop: Loop, tol: number): SectionPoint[] {
   const out: SectionPoint[] = [];
   for (const p of loop) {
-    const q = out[out.length - 1];
+    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
+    const q = out.length > 0 ? out[out.length - 1] : undefined;
     if (!q || vectorLength(p.y - q.y, p.z - q.z) > tol) out.push(p);
   }
   while (out.length > 1 && vectorLength(out[0]!.y - out[out.length - 1]!.y, out[0]!.z - out[out.length - 1]!.z) <= tol) out.pop();

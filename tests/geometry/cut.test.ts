@@ -53,6 +53,19 @@ describe('cutShapes', () => {
     expect(out[0]!.outer).toBe(disc.outer);
   });
 
+  it("reads the region's box off its indexed blocks: a cutter just past the widest point is left alone, one on it bites (source: clipper-lib 6.4.2 difference)", () => {
+    // The disc's widest point, y = 500, is its first point: the last block's edge back to it must count too.
+    let widest = -Infinity;
+    for (const p of disc.outer) widest = Math.max(widest, p.y);
+    expect(cutShapes([disc], [rect(widest + 2.5, 600, 4, 4)])[0]!.outer).toBe(disc.outer);
+    const bite = rect(widest, 600, 4, 4);
+    const ours = cutShapes([disc], [bite]);
+    const theirs = shapeBoolean('difference', [disc], [{ outer: bite, holes: [] }]);
+    expect(ours).toHaveLength(1);
+    expectClose(shapeArea(ours[0]!), shapeArea(theirs[0]!), rounding(theirs), 'bite on the widest point');
+    expect(shapeArea(ours[0]!)).toBeLessThan(shapeArea(disc));
+  });
+
   it('hands overlapping cutters, and cutters reaching a hole, to clipper-lib', () => {
     // Two overlapping bites, and a bite deeper than the ring (it breaks into the opening).
     const over = cutShapes([disc], [rect(500, 600, 40, 40), rect(500, 620, 40, 40)]);

@@ -65,3 +65,27 @@ describe('sectionAt at the stem', () => {
     expect(s.nodes.map((n) => n.lineIds[0])).toEqual(['keel', 'wl300', 'sheer']);
   });
 });
+
+describe('sectionNodesAt: order whatever order the lines are given in', () => {
+  // Analytic case: a round section (half-breadth growing with height), its waterlines listed scrambled: keel to sheer is by
+  // height. Below nodes.ts INSERTION_SORT_MAX points an insertion sort orders them, above it Array.sort.
+  const section = (count: number) => {
+    const heights = Array.from({ length: count }, (_, k) => 10 + (k * 980) / count);
+    const scrambled = heights.map((_, k) => heights[(k * 7) % count]!);
+    return hullBuild(
+      table([
+        { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', cells: same({ y: 1000, z: 1000 }) },
+        ...scrambled.map((z) => ({ id: `wl${z}`, name: `WL ${z}`, kind: 'waterline' as const, z, cells: same(1000 * Math.sqrt(z / 1000)) })),
+        { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', cells: same({ y: 0, z: 0 }) },
+      ]),
+    );
+  };
+  it.each([40, 150])('puts %i scrambled waterlines in order of height (insertion sort for 40, Array.sort for 150)', (count) => {
+    const { all, from, to } = sectionNodesAt(section(count).fitted, 1000);
+    const z = all.map((n) => n.z);
+    expect(all[0]!.lineIds).toEqual(['keel']);
+    expect(all[all.length - 1]!.lineIds).toEqual(['sheer']);
+    expect(z.every((v, i) => i === 0 || v > z[i - 1]!)).toBe(true);
+    expect([from, to]).toEqual([0, count + 1]);
+  });
+});
