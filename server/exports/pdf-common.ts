@@ -1,3 +1,6 @@
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import PDFDocument from 'pdfkit';
 
 /**
@@ -10,11 +13,30 @@ export const PT_PER_MM = 72 / 25.4;
 /** Millimetres to points. */
 export const pt = (lengthMm: number): number => lengthMm * PT_PER_MM;
 
-/** The standard PDF fonts used (no font is embedded: every reader has them). */
-export const FONT = 'Helvetica';
-export const FONT_BOLD = 'Helvetica-Bold';
-/** Helvetica's capital height as a fraction of its size (Adobe's Helvetica AFM: CapHeight 718). */
-export const CAP_HEIGHT = 0.718;
+/**
+ * The fonts, embedded in every PDF (pdfkit writes only the glyphs a file uses): Liberation Sans, shipped in
+ * the repository's fonts/ folder (see fonts/README.md), so names in Polish, Czech, Cyrillic and so on print
+ * as typed. Its widths match Helvetica's, the standard font it replaces. The folder is found from this
+ * file, as scripts/lib/setup.mjs finds the root, so it is the same from a clone, `npm start` and the tests
+ * whatever the working directory.
+ */
+export const FONT = 'Liberation Sans';
+export const FONT_BOLD = 'Liberation Sans Bold';
+const FONTS_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', 'fonts');
+export const FONT_FILES: Readonly<Record<string, string>> = {
+  [FONT]: path.join(FONTS_DIR, 'LiberationSans-Regular.ttf'),
+  [FONT_BOLD]: path.join(FONTS_DIR, 'LiberationSans-Bold.ttf'),
+};
+// Read once, when the server starts (a missing file stops it there, not on a builder's export); each
+// document is given the bytes, so no export reads the disk again.
+const fontBytes = Object.entries(FONT_FILES).map(([name, file]) => [name, readFileSync(file)] as const);
+
+/**
+ * Liberation Sans's capital height as a fraction of its size: OS/2 sCapHeight 1409 over head unitsPerEm
+ * 2048, the same in Regular and Bold (the files in fonts/; the outlines of H, E and I top out at 1409 too).
+ * Helvetica's is 0.718, so a capital height in millimetres now asks for a size about 4 % larger.
+ */
+export const CAP_HEIGHT = 1409 / 2048;
 
 export type Doc = PDFKit.PDFDocument;
 
@@ -25,23 +47,86 @@ export function pdfDocument(info: { title: string; subject: string; date: string
     autoFirstPage: false,
     margin: 0,
     compress: true,
-    info: { Title: winAnsi(info.title), Subject: winAnsi(info.subject), Creator: 'Loftbench', Producer: 'Loftbench (pdfkit)', CreationDate: created, ModDate: created },
+    info: { Title: infoText(info.title), Subject: infoText(info.subject), Creator: 'Loftbench', Producer: 'Loftbench (pdfkit)', CreationDate: created, ModDate: created },
   });
-  for (const f of [FONT, FONT_BOLD]) memoiseEncoding(doc, f);
+  for (const [name, bytes] of fontBytes) useFont(doc, name, bytes);
   return doc;
 }
 
-type EncodingFont = { encode?: (text: string, features?: unknown) => unknown };
+/**
+ * The Info dictionary's Title and Subject are PDF text strings, which pdfkit writes as UTF-16BE when they
+ * are not ASCII: every character is kept (a reader shows them with its own fonts), on one line.
+ */
+function infoText(text: string): string {
+  return text.normalize('NFC').replace(/[\p{Cc}\u2028\u2029]/gu, ' ');
+}
 
 /**
- * The same strings go on every sheet (title, check words, neighbours' names): pdfkit's standard fonts
- * work out glyphs and kerning afresh for each, so each font's `encode` (pdfkit 0.20 internals) keeps what
- * it has worked out, per document. Its result is only read by pdfkit. Left as it is when absent.
+ * pdfkit's font in use (pdfkit 0.20 internals): its `encode`, its layout of one word (`layoutRun`, and
+ * `layoutCached`, which keeps it), and for an embedded font the fontkit font parsed from the file.
  */
-function memoiseEncoding(doc: Doc, font: string): void {
-  doc.font(font);
-  const f = (doc as Doc & { _font?: EncodingFont })._font;
-  if (!f || typeof f.encode !== 'function') return;
+type FontkitFont = {
+  layout?: unknown;
+  hasGlyphForCodePoint?: (codePoint: number) => boolean;
+  characterSet?: readonly number[];
+  glyphForCodePoint?: (codePoint: number) => unknown;
+};
+type PdfkitFont = {
+  encode?: (text: string, features?: unknown) => unknown;
+  layoutRun?: (text: string) => unknown;
+  layoutCached?: (text: string) => unknown;
+  font?: FontkitFont;
+};
+type FontDoc = Doc & { _font?: PdfkitFont };
+
+/**
+ * Each font file parsed once for the whole server, not once per document: pdfkit 0.20 takes a parsed
+ * fontkit font in `registerFont`, and the one it parsed for the first document is kept. With it, the
+ * layout of each word (glyphs and kerning, the slow part of setting text in an embedded font), which
+ * depends on the font alone: the cautions, check words and numbers are the same in every export. Started
+ * afresh past WORD_LAYOUTS words, so that a server running for months does not grow without end.
+ */
+const parsedFonts = new Map<string, { font: FontkitFont; words: Map<string, unknown> }>();
+const WORD_LAYOUTS = 20000;
+
+function useFont(doc: Doc, name: string, bytes: Buffer): void {
+  const known = parsedFonts.get(name);
+  // @types/pdfkit lists paths and bytes only; pdfkit 0.20 also takes the parsed font (its changelog).
+  doc.registerFont(name, (known?.font ?? bytes) as Buffer);
+  doc.font(name);
+  const f = (doc as FontDoc)._font;
+  if (!f) return;
+  const shared = known ?? (f.font && typeof f.font.layout === 'function' ? { font: f.font, words: new Map<string, unknown>() } : undefined);
+  if (shared && !known) {
+    parsedFonts.set(name, shared);
+    // fontkit keeps each glyph with the characters it was first asked for, and pdfkit writes those as the
+    // text a reader copies out. A glyph first met as part of another (Z inside Ž, when a file is embedded)
+    // would keep none, in every later document: so every glyph is asked for by its character first.
+    for (const codePoint of shared.font.characterSet ?? []) shared.font.glyphForCodePoint?.(codePoint);
+  }
+  if (shared && typeof f.layoutRun === 'function' && typeof f.layoutCached === 'function') {
+    const layoutRun = f.layoutRun.bind(f);
+    const words = shared.words;
+    f.layoutCached = (text: string) => {
+      let r = words.get(text);
+      if (r === undefined) {
+        if (words.size >= WORD_LAYOUTS) words.clear();
+        words.set(text, (r = layoutRun(text)));
+      }
+      return r;
+    };
+  }
+  memoiseEncoding(f);
+}
+
+/**
+ * The same strings go on every sheet (title, check words, neighbours' names): pdfkit joins the words'
+ * glyphs and marks them in the document's subset afresh for each, so each font's `encode` (pdfkit 0.20
+ * internals) keeps what it has worked out, per document. Its result is only read by pdfkit, and its one
+ * side effect, marking the glyphs for the subset, is done the first time. Left as it is when absent.
+ */
+function memoiseEncoding(f: PdfkitFont): void {
+  if (typeof f.encode !== 'function') return;
   const encode = f.encode.bind(f);
   const memo = new Map<string, unknown>();
   f.encode = (text: string, features?: unknown) => {
@@ -83,16 +168,31 @@ export function pdfBuffer(doc: Doc): Promise<Buffer> {
   return done;
 }
 
-// Characters the standard fonts' WinAnsi encoding has beyond Latin-1 (ISO 32000-1, Annex D.2).
-const WIN_ANSI_EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
+// Printable ASCII, which Liberation Sans has in full: most strings on a sheet, passed through unchecked.
+const PLAIN = /^[\x20-\x7e]*$/;
+const LINE_BREAK = /[\t\n\v\f\r\u0085\u2028\u2029]/u;
+const CONTROL = /\p{Cc}/u;
+// Invisible by definition (joiners, variation selectors, soft hyphens...): nothing to draw.
+const INVISIBLE = /\p{Default_Ignorable_Code_Point}/u;
 
-/** Text the standard fonts can show: any character outside WinAnsi becomes '?', line breaks become spaces. */
-export function winAnsi(text: string): string {
+/**
+ * `text` as `fontName` can show it, on one line: composed (NFC, so a letter typed as a base and an accent
+ * gets the font's accented glyph), line breaks and tabs as spaces, invisible characters dropped, and a
+ * character the font has no glyph for (an emoji, Chinese) as '?', one per character: the builder sees that
+ * something is missing there rather than an empty box or nothing, and the file's Title keeps the name as
+ * typed. Makes `fontName` the document's current font when it has to look.
+ */
+function shown(doc: Doc, text: string, fontName: string): string {
+  if (PLAIN.test(text)) return text;
+  doc.font(fontName);
+  const font = (doc as FontDoc)._font?.font;
   let out = '';
-  for (const ch of text) {
-    const c = ch.codePointAt(0)!;
-    if (c === 10 || c === 13 || c === 9) out += ' ';
-    else if ((c >= 0x20 && c <= 0x7e) || (c >= 0xa0 && c <= 0xff) || WIN_ANSI_EXTRA.has(ch)) out += ch;
+  for (const ch of text.normalize('NFC')) {
+    if (LINE_BREAK.test(ch)) out += ' ';
+    else if (CONTROL.test(ch)) out += '?';
+    else if (INVISIBLE.test(ch)) continue;
+    // Without pdfkit's fontkit font (other pdfkit internals) the text goes as typed.
+    else if (!font?.hasGlyphForCodePoint || font.hasGlyphForCodePoint(ch.codePointAt(0)!)) out += ch;
     else out += '?';
   }
   return out;
@@ -136,7 +236,8 @@ function widthPt(doc: Doc, s: string, font: string, size: number): number {
 
 /** Width (mm) of `text` set at a capital height of `capMm`. */
 export function textWidthMm(doc: Doc, text: string, capMm: number, bold = false): number {
-  return widthPt(doc, winAnsi(text), bold ? FONT_BOLD : FONT, fontSizeForCap(capMm)) / PT_PER_MM;
+  const font = bold ? FONT_BOLD : FONT;
+  return widthPt(doc, shown(doc, text, font), font, fontSizeForCap(capMm)) / PT_PER_MM;
 }
 
 function setLine(doc: Doc, s: string, xPt: number, yPt: number): void {
@@ -147,9 +248,9 @@ function setLine(doc: Doc, s: string, xPt: number, yPt: number): void {
 
 /** Sets `text` with its baseline through (xMm, yMm) on the page (mm from the top-left corner). */
 export function textAt(doc: Doc, text: string, xMm: number, yMm: number, style: TextStyle): void {
-  const s = winAnsi(text);
-  if (!s) return;
   const font = style.bold ? FONT_BOLD : FONT;
+  const s = shown(doc, text, font);
+  if (!s) return;
   const size = fontSizeForCap(style.capMm);
   const dx = style.align === 'centre' ? -widthPt(doc, s, font, size) / 2 : style.align === 'end' ? -widthPt(doc, s, font, size) : 0;
   doc.font(font).fontSize(size).fillColor(style.color ?? 'black');
@@ -175,7 +276,7 @@ export function wrapLines(doc: Doc, text: string, widthMm: number, capMm: number
   const lines: string[] = [];
   let line = '';
   let w = 0;
-  for (const word of winAnsi(text).split(/ +/).filter(Boolean)) {
+  for (const word of shown(doc, text, font).split(/ +/).filter(Boolean)) {
     const ww = widthPt(doc, word, font, size);
     if (line && w + space + ww > room) {
       lines.push(line);

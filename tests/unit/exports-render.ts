@@ -43,6 +43,40 @@ export async function pdfRead(buf: Buffer): Promise<PdfPageRead[]> {
   return pages;
 }
 
+/** A text item read back by pdfjs with its font: the font's name in the file and whether the file carries the font itself. */
+export interface PdfTextFont {
+  str: string;
+  fontName: string;
+  embedded: boolean;
+}
+
+/** Every text item of every page with its font, as pdfjs-dist loads it to draw the page. */
+export async function pdfTextFonts(buf: Buffer): Promise<PdfTextFont[]> {
+  const doc = await pdfjs.getDocument({ data: new Uint8Array(buf), useSystemFonts: false, isEvalSupported: false, verbosity: 0, fontExtraProperties: true }).promise;
+  const out: PdfTextFont[] = [];
+  for (let i = 1; i <= doc.numPages; i++) {
+    const page = await doc.getPage(i);
+    const content = await page.getTextContent();
+    // The fonts are loaded into the page's objects as it is drawn.
+    await page.getOperatorList();
+    for (const it of content.items) {
+      if (!('str' in it)) continue;
+      const font = page.commonObjs.get(it.fontName) as { name?: string; missingFile?: boolean };
+      out.push({ str: it.str, fontName: font.name ?? '', embedded: font.missingFile === false });
+    }
+  }
+  await doc.destroy();
+  return out;
+}
+
+/** The Info dictionary's Title and Subject as pdfjs-dist reads them. */
+export async function pdfInfo(buf: Buffer): Promise<{ title: string; subject: string }> {
+  const doc = await pdfjs.getDocument({ data: new Uint8Array(buf), useSystemFonts: false, isEvalSupported: false, verbosity: 0 }).promise;
+  const info = (await doc.getMetadata()).info as { Title?: string; Subject?: string };
+  await doc.destroy();
+  return { title: info.Title ?? '', subject: info.Subject ?? '' };
+}
+
 /** An RGB image as rendered. */
 export interface Rgb {
   width: number;

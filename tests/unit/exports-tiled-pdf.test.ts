@@ -84,7 +84,8 @@ function sheetNames(pages: Awaited<ReturnType<typeof pdfRead>>): string[] {
   });
 }
 
-const pageText = (p: { texts: { str: string }[] }): string => p.texts.map((t) => t.str).join(' ');
+/** A page's text, each run of white space as one space: where a paragraph's lines break depends on the font's widths, not on the words checked. */
+const pageText = (p: { texts: { str: string }[] }): string => p.texts.map((t) => t.str).join(' ').replace(/\s+/g, ' ');
 
 describe('tiledPdf page sizes read back with pdfjs-dist', { timeout: 120000 }, () => {
   const cases: [string, PaperSize, 'portrait' | 'landscape', number, number][] = [
