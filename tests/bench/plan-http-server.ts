@@ -10,6 +10,8 @@ import { createApp } from '../../server/app';
 import { configFromEnv } from '../../server/config';
 import { createSequelize } from '../../server/db';
 import { requireUser } from '../../server/http/auth';
+import { parseInput } from '../../server/errors';
+import { savePlanSchema } from '../../shared/api/plan';
 import { hullCreate } from '../../server/services/hulls';
 import { revisionSave } from '../../server/services/plans';
 import { userCreate } from '../../server/services/users';
@@ -48,6 +50,12 @@ async function main() {
   // origin check, the signed-in guard) as the plan read.
   app.get('/bench/constant', requireUser, (_req, res) => {
     res.json({ ok: true });
+  });
+  // The floor of a save: the same middleware and the same validation of the body as the save route, then
+  // nothing (no comparison, no compression, no database).
+  app.post('/bench/validate-only', requireUser, (req, res) => {
+    parseInput(savePlanSchema, req.body);
+    res.status(201).json({ revision: { id: null } });
   });
   const server = app.listen(0, '127.0.0.1');
   await new Promise((r) => server.once('listening', r));

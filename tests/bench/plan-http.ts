@@ -74,8 +74,15 @@ async function readRuns(ready: BenchServerReady, cpuMs: CpuMs): Promise<string[]
   ];
 }
 
-/** 10 writers, each chaining revisions on its own hull for SECONDS. */
+/** 10 writers, each chaining revisions on its own hull for SECONDS; the validation floor first. */
 async function saveRuns(ready: BenchServerReady, cpuMs: CpuMs): Promise<string[]> {
+  return [
+    await writerRun(ready, cpuMs, () => '/bench/validate-only', 'save floor: validation only, 10 writers'),
+    await writerRun(ready, cpuMs, (hullId) => `/api/hulls/${hullId}/plan/revisions`, 'save revision, 10 writers'),
+  ];
+}
+
+async function writerRun(ready: BenchServerReady, cpuMs: CpuMs, pathOf: (hullId: number) => string, name: string): Promise<string> {
   const { base, cookie, plan, origin } = ready;
   const writers = ready.writerHullIds.map((hullId) => ({ hullId, base: null as number | null }));
   const latencies: number[] = [];
@@ -88,7 +95,7 @@ async function saveRuns(ready: BenchServerReady, cpuMs: CpuMs): Promise<string[]
         const p = structuredClone(plan);
         (p.lines.lines[3].cells as Record<string, number>)['st-2'] = 500 + k + n / 1000;
         const t0 = performance.now();
-        const res = await fetch(`${base}/api/hulls/${w.hullId}/plan/revisions`, { method: 'POST', headers: { 'content-type': 'application/json', origin, cookie }, body: JSON.stringify({ baseRevisionId: w.base, plan: p }) });
+        const res = await fetch(`${base}${pathOf(w.hullId)}`, { method: 'POST', headers: { 'content-type': 'application/json', origin, cookie }, body: JSON.stringify({ baseRevisionId: w.base, plan: p }) });
         const body = await res.json();
         latencies.push(performance.now() - t0);
         if (res.status === 201) w.base = body.revision.id;
@@ -97,7 +104,7 @@ async function saveRuns(ready: BenchServerReady, cpuMs: CpuMs): Promise<string[]
     }),
   );
   const cpu = ((await cpuMs()) - cpuBefore) / Math.max(1, latencies.length);
-  return [`save revision, 10 writers: ${latencies.length} saves, p50 ${percentile(latencies, 50).toFixed(1)} ms, p95 ${percentile(latencies, 95).toFixed(1)} ms, server CPU ${cpu.toFixed(2)} ms/save, failures ${failures}  (target p95 under 50 ms)`];
+  return `${name}: ${latencies.length} saves, p50 ${percentile(latencies, 50).toFixed(1)} ms, p95 ${percentile(latencies, 95).toFixed(1)} ms, server CPU ${cpu.toFixed(2)} ms/save, failures ${failures}  (target p95 under 50 ms)`;
 }
 
 async function main() {
