@@ -91,7 +91,8 @@ function split(
   t0: number, t1: number, depth: number, tol2: number, out: number[],
 ): void {
   if (depth >= MAX_DEPTH) return;
-  if (Math.max(dist2ToChord(x1, y1, x0, y0, x3, y3), dist2ToChord(x2, y2, x0, y0, x3, y3)) <= tol2) return;
+  // Both control points within the tolerance of the chord (the second not worked out when the first is not).
+  if (dist2ToChord(x1, y1, x0, y0, x3, y3) <= tol2 && dist2ToChord(x2, y2, x0, y0, x3, y3) <= tol2) return;
   const ax = (x0 + x1) / 2, ay = (y0 + y1) / 2;
   const bx = (x1 + x2) / 2, by = (y1 + y2) / 2;
   const cx = (x2 + x3) / 2, cy = (y2 + y3) / 2;

@@ -141,59 +141,69 @@ export function polygonContainsPoint(loop: Loop, p: SectionPoint, toleranceMm: n
 // ---------------------------------------------------------------------------------------------------
 // Segment intersection, bucketed on a grid so that long loops stay near linear in time.
 
-interface Seg {
-  a: SectionPoint;
-  b: SectionPoint;
-  loop: number;
-  index: number;
-}
+/**
+ * Segments as flat coordinates: segment i runs from (c[4i], c[4i + 1]) to (c[4i + 2], c[4i + 3]). Flat, not
+ * an object a segment: the checks run on every ring face, and the objects were most of their time.
+ */
+type Segs = Float64Array;
 
-const orient = (a: SectionPoint, b: SectionPoint, c: SectionPoint): number => (b.y - a.y) * (c.z - a.z) - (b.z - a.z) * (c.y - a.y);
-
-/** Squared distance from p to segment ab (no square root: only compared). */
-function segmentDistance2(p: SectionPoint, a: SectionPoint, b: SectionPoint): number {
-  const dy = b.y - a.y;
-  const dz = b.z - a.z;
+/** Squared distance from (py, pz) to segment ab (no square root: only compared). */
+function segmentDistance2(py: number, pz: number, ay: number, az: number, by: number, bz: number): number {
+  const dy = by - ay;
+  const dz = bz - az;
   const len2 = dy * dy + dz * dz;
-  let t = len2 === 0 ? 0 : ((p.y - a.y) * dy + (p.z - a.z) * dz) / len2;
+  let t = len2 === 0 ? 0 : ((py - ay) * dy + (pz - az) * dz) / len2;
   t = t < 0 ? 0 : t > 1 ? 1 : t;
-  const ey = p.y - (a.y + t * dy);
-  const ez = p.z - (a.z + t * dz);
+  const ey = py - (ay + t * dy);
+  const ez = pz - (az + t * dz);
   return ey * ey + ez * ez;
 }
 
-/** Segments cross or come within tol of each other. */
-function segmentsTouch(s: Seg, t: Seg, tol: number): boolean {
+/** Segments i and j cross or come within tol of each other. */
+function segmentsTouch(c: Segs, i: number, j: number, tol: number): boolean {
+  const say = c[4 * i]!;
+  const saz = c[4 * i + 1]!;
+  const sby = c[4 * i + 2]!;
+  const sbz = c[4 * i + 3]!;
+  const tay = c[4 * j]!;
+  const taz = c[4 * j + 1]!;
+  const tby = c[4 * j + 2]!;
+  const tbz = c[4 * j + 3]!;
   // Boxes grown by tol must overlap before anything else is worth computing.
-  if (Math.max(s.a.y, s.b.y) + tol < Math.min(t.a.y, t.b.y) || Math.max(t.a.y, t.b.y) + tol < Math.min(s.a.y, s.b.y)) return false;
-  if (Math.max(s.a.z, s.b.z) + tol < Math.min(t.a.z, t.b.z) || Math.max(t.a.z, t.b.z) + tol < Math.min(s.a.z, s.b.z)) return false;
-  const d1 = orient(s.a, s.b, t.a);
-  const d2 = orient(s.a, s.b, t.b);
-  const d3 = orient(t.a, t.b, s.a);
-  const d4 = orient(t.a, t.b, s.b);
+  if (Math.max(say, sby) + tol < Math.min(tay, tby) || Math.max(tay, tby) + tol < Math.min(say, sby)) return false;
+  if (Math.max(saz, sbz) + tol < Math.min(taz, tbz) || Math.max(taz, tbz) + tol < Math.min(saz, sbz)) return false;
+  // Which side of each segment the other's ends are on (the orientation of the three points).
+  const d1 = (sby - say) * (taz - saz) - (sbz - saz) * (tay - say);
+  const d2 = (sby - say) * (tbz - saz) - (sbz - saz) * (tby - say);
+  const d3 = (tby - tay) * (saz - taz) - (tbz - taz) * (say - tay);
+  const d4 = (tby - tay) * (sbz - taz) - (tbz - taz) * (sby - tay);
   if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return true;
   const tol2 = tol * tol;
-  return segmentDistance2(t.a, s.a, s.b) <= tol2 || segmentDistance2(t.b, s.a, s.b) <= tol2 || segmentDistance2(s.a, t.a, t.b) <= tol2 || segmentDistance2(s.b, t.a, t.b) <= tol2;
+  return (
+    segmentDistance2(tay, taz, say, saz, sby, sbz) <= tol2 ||
+    segmentDistance2(tby, tbz, say, saz, sby, sbz) <= tol2 ||
+    segmentDistance2(say, saz, tay, taz, tby, tbz) <= tol2 ||
+    segmentDistance2(sby, sbz, tay, taz, tby, tbz) <= tol2
+  );
 }
 
 /**
- * Calls `test` once for every pair of segments whose boxes (grown by tol) share a cell of a grid of about
+ * Calls `test` once for every pair of the n segments whose boxes (grown by tol) share a cell of a grid of about
  * n cells; stops and returns true as soon as a call does. A pair is visited only in the first cell the two
  * boxes share, so no pair is tested twice. Cells are filled by counting sort into flat arrays (no
  * per-cell allocation): the 2000-point loops of a fine section must take well under a millisecond.
  */
-function anyPair(segs: Seg[], tol: number, test: (s: Seg, t: Seg) => boolean): boolean {
-  const n = segs.length;
+function anyPair(c: Segs, n: number, tol: number, test: (i: number, j: number) => boolean): boolean {
   if (n < 2) return false;
   let minY = Infinity;
   let minZ = Infinity;
   let maxY = -Infinity;
   let maxZ = -Infinity;
-  for (const s of segs) {
-    minY = Math.min(minY, s.a.y, s.b.y);
-    maxY = Math.max(maxY, s.a.y, s.b.y);
-    minZ = Math.min(minZ, s.a.z, s.b.z);
-    maxZ = Math.max(maxZ, s.a.z, s.b.z);
+  for (let i = 0; i < n; i++) {
+    minY = Math.min(minY, c[4 * i]!, c[4 * i + 2]!);
+    maxY = Math.max(maxY, c[4 * i]!, c[4 * i + 2]!);
+    minZ = Math.min(minZ, c[4 * i + 1]!, c[4 * i + 3]!);
+    maxZ = Math.max(maxZ, c[4 * i + 1]!, c[4 * i + 3]!);
   }
   const w = maxY - minY + 2 * tol;
   const h = maxZ - minZ + 2 * tol;
@@ -206,49 +216,60 @@ function anyPair(segs: Seg[], tol: number, test: (s: Seg, t: Seg) => boolean): b
   const range = new Int32Array(4 * n);
   const count = new Int32Array(cols * rows + 1);
   for (let i = 0; i < n; i++) {
-    const s = segs[i]!;
-    const c0 = Math.max(0, Math.floor((Math.min(s.a.y, s.b.y) - minY) * fy));
-    const r0 = Math.max(0, Math.floor((Math.min(s.a.z, s.b.z) - minZ) * fz));
-    const c1 = Math.min(cols - 1, Math.floor((Math.max(s.a.y, s.b.y) - minY + 2 * tol) * fy));
-    const r1 = Math.min(rows - 1, Math.floor((Math.max(s.a.z, s.b.z) - minZ + 2 * tol) * fz));
+    const ay = c[4 * i]!;
+    const az = c[4 * i + 1]!;
+    const by = c[4 * i + 2]!;
+    const bz = c[4 * i + 3]!;
+    const c0 = Math.max(0, Math.floor((Math.min(ay, by) - minY) * fy));
+    const r0 = Math.max(0, Math.floor((Math.min(az, bz) - minZ) * fz));
+    const c1 = Math.min(cols - 1, Math.floor((Math.max(ay, by) - minY + 2 * tol) * fy));
+    const r1 = Math.min(rows - 1, Math.floor((Math.max(az, bz) - minZ + 2 * tol) * fz));
     range[4 * i] = c0;
     range[4 * i + 1] = r0;
     range[4 * i + 2] = c1;
     range[4 * i + 3] = r1;
-    for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) count[r * cols + c + 1]!++;
+    for (let r = r0; r <= r1; r++) for (let k = c0; k <= c1; k++) count[r * cols + k + 1]!++;
   }
   for (let k = 1; k < count.length; k++) count[k]! += count[k - 1]!;
   const fill = count.slice(0, cols * rows);
   const members = new Int32Array(count[cols * rows]!);
   for (let i = 0; i < n; i++) {
     for (let r = range[4 * i + 1]!; r <= range[4 * i + 3]!; r++) {
-      for (let c = range[4 * i]!; c <= range[4 * i + 2]!; c++) members[fill[r * cols + c]!++] = i;
+      for (let k = range[4 * i]!; k <= range[4 * i + 2]!; k++) members[fill[r * cols + k]!++] = i;
     }
   }
   for (let key = 0; key < cols * rows; key++) {
     const from = count[key]!;
     const to = count[key + 1]!;
     if (to - from < 2) continue;
-    const c = key % cols;
-    const r = (key - c) / cols;
+    const col = key % cols;
+    const r = (key - col) / cols;
     for (let x = from; x < to; x++) {
       const i = members[x]!;
       for (let y = x + 1; y < to; y++) {
         const j = members[y]!;
         // Visit the pair only in the first cell both boxes cover.
-        if (Math.max(range[4 * i]!, range[4 * j]!) !== c || Math.max(range[4 * i + 1]!, range[4 * j + 1]!) !== r) continue;
-        if (test(segs[i]!, segs[j]!)) return true;
+        if (Math.max(range[4 * i]!, range[4 * j]!) !== col || Math.max(range[4 * i + 1]!, range[4 * j + 1]!) !== r) continue;
+        if (test(i, j)) return true;
       }
     }
   }
   return false;
 }
 
-function loopSegments(loop: Loop, loopIndex: number, tol: number): Seg[] {
-  const segs: Seg[] = [];
+/** The loop's edges (repeated points within tol dropped, the closing edge last) into `c` from segment `at` on; how many. */
+function loopSegments(loop: Loop, tol: number, c: Segs, at: number): number {
   const pts = dedupe(loop, tol);
-  for (let i = 0; i < pts.length; i++) segs.push({ a: pts[i]!, b: pts[(i + 1) % pts.length]!, loop: loopIndex, index: i });
-  return segs;
+  const n = pts.length;
+  for (let i = 0; i < n; i++) {
+    const a = pts[i]!;
+    const b = pts[i + 1 < n ? i + 1 : 0]!;
+    c[4 * (at + i)] = a.y;
+    c[4 * (at + i) + 1] = a.z;
+    c[4 * (at + i) + 2] = b.y;
+    c[4 * (at + i) + 3] = b.z;
+  }
+  return n;
 }
 
 /** The loop without repeated consecutive points (within tol), the closing pair included. */
@@ -269,21 +290,22 @@ function dedupe(loop: Loop, tol: number): SectionPoint[] {
  * are ignored. Grid-bucketed, near O(n) for a loop of evenly spread points.
  */
 export function polygonIsSimple(loop: Loop, toleranceMm: number = POINT_TOLERANCE_MM): boolean {
-  const segs = loopSegments(loop, 0, toleranceMm);
-  const n = segs.length;
+  const c: Segs = new Float64Array(4 * loop.length);
+  const n = loopSegments(loop, toleranceMm, c, 0);
   if (n < 3) return false;
   if (polygonOrientation(loop, 0) === 'degenerate') return false;
+  const tol2 = toleranceMm * toleranceMm;
   // Neighbours share a vertex, so they always "touch"; they fail only when one folds back along the other.
   for (let i = 0; i < n; i++) {
-    const s = segs[i]!;
-    const t = segs[(i + 1) % n]!;
-    const dot = (s.a.y - s.b.y) * (t.b.y - t.a.y) + (s.a.z - s.b.z) * (t.b.z - t.a.z);
-    if (dot > 0 && (segmentDistance2(t.b, s.a, s.b) <= toleranceMm * toleranceMm || segmentDistance2(s.a, t.a, t.b) <= toleranceMm * toleranceMm)) return false;
+    const s = 4 * i;
+    const t = 4 * (i + 1 < n ? i + 1 : 0);
+    const dot = (c[s]! - c[s + 2]!) * (c[t + 2]! - c[t]!) + (c[s + 1]! - c[s + 3]!) * (c[t + 3]! - c[t + 1]!);
+    if (dot > 0 && (segmentDistance2(c[t + 2]!, c[t + 3]!, c[s]!, c[s + 1]!, c[s + 2]!, c[s + 3]!) <= tol2 || segmentDistance2(c[s]!, c[s + 1]!, c[t]!, c[t + 1]!, c[t + 2]!, c[t + 3]!) <= tol2)) return false;
   }
-  return !anyPair(segs, toleranceMm, (s, t) => {
-    const gap = Math.abs(s.index - t.index);
+  return !anyPair(c, n, toleranceMm, (i, j) => {
+    const gap = Math.abs(i - j);
     if (gap === 1 || gap === n - 1) return false;
-    return segmentsTouch(s, t, toleranceMm);
+    return segmentsTouch(c, i, j, toleranceMm);
   });
 }
 
@@ -294,8 +316,11 @@ export function polygonIsSimple(loop: Loop, toleranceMm: number = POINT_TOLERANC
 export function polygonInsidePolygon(inner: Loop, outer: Loop, toleranceMm: number = POINT_TOLERANCE_MM): boolean {
   if (inner.length === 0 || outer.length < 3) return false;
   if (!inner.every((p) => polygonPointLocation(outer, p, toleranceMm) === 'inside')) return false;
-  const segs = [...loopSegments(inner, 0, toleranceMm), ...loopSegments(outer, 1, toleranceMm)];
-  return !anyPair(segs, toleranceMm, (s, t) => s.loop !== t.loop && segmentsTouch(s, t, toleranceMm));
+  const c: Segs = new Float64Array(4 * (inner.length + outer.length));
+  const ni = loopSegments(inner, toleranceMm, c, 0);
+  const n = ni + loopSegments(outer, toleranceMm, c, ni);
+  // Segments 0 .. ni - 1 are the inner loop's, the rest the outer's: only pairs across the two are tested.
+  return !anyPair(c, n, toleranceMm, (i, j) => i < ni !== j < ni && segmentsTouch(c, i, j, toleranceMm));
 }
 
 // ---------------------------------------------------------------------------------------------------

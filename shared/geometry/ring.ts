@@ -71,12 +71,48 @@ function fillet(from: SectionPoint, to: SectionPoint, centre: SectionPoint, r: n
 /** How much (mm) closer than the narrowest width the inner edge may come to the outer edge (rounding of the joins). */
 export const RING_WIDTH_CHECK_MM = 0.01;
 
+/** Points, or segments, to a block of `ringEdgeClearance` (consecutive ones, so a block keeps to one stretch of edge). */
+const CLEARANCE_BLOCK = 6;
+
+/**
+ * Room (mm) added to the distance a block is passed over at. The squared distances round by far less than
+ * the 2 x 1e-3 x d + 1e-6 mm^2 this adds (hull coordinates to 1e5 mm), even where d is near 0, so no segment
+ * whose rounded distance might still come out nearer is passed over.
+ */
+const CLEARANCE_ROUNDING_MM = 1e-3;
+
+/** The box (minY, maxY, minZ, maxZ) of each run of `CLEARANCE_BLOCK` of n items, item k spanning y0(k) to y1(k) and z0(k) to z1(k). */
+function blockBoxes(n: number, y0: (k: number) => number, y1: (k: number) => number, z0: (k: number) => number, z1: (k: number) => number): Float64Array {
+  const boxes = new Float64Array(4 * Math.ceil(n / CLEARANCE_BLOCK));
+  for (let b = 0; 4 * b < boxes.length; b++) {
+    let minY = Infinity;
+    let maxY = -Infinity;
+    let minZ = Infinity;
+    let maxZ = -Infinity;
+    for (let k = b * CLEARANCE_BLOCK, end = Math.min(n, k + CLEARANCE_BLOCK); k < end; k++) {
+      minY = Math.min(minY, y0(k));
+      maxY = Math.max(maxY, y1(k));
+      minZ = Math.min(minZ, z0(k));
+      maxZ = Math.max(maxZ, z1(k));
+    }
+    boxes[4 * b] = minY;
+    boxes[4 * b + 1] = maxY;
+    boxes[4 * b + 2] = minZ;
+    boxes[4 * b + 3] = maxZ;
+  }
+  return boxes;
+}
+
 /**
  * The least distance (mm) from the points to the runs' segments when it is less than `limit`, and the point
- * where it is (else `limit`). Segments are put in a grid of cells at least `limit` wide, so each point is
- * tested only against the segments of the 3 x 3 cells around it (every segment within `limit` of a point
- * touches one of them): linear in the points, not quadratic. The grid is filled by counting sort into flat
- * typed arrays, with no allocation per cell or per segment (a map of arrays was a tenth of a frame's time).
+ * where it is (else `limit`). Points and segments go in blocks of `CLEARANCE_BLOCK` consecutive ones with
+ * their boxes: a block of segments is passed over for a block of points, then for a point, when their boxes
+ * are the distance found so far apart in y or z (no segment in it can be nearer; the distance only shrinks,
+ * so a block passed over for the points' block stays passed over). Along an edge a block of inner points
+ * has only the few blocks of the outer edge beside it to look at, and there is no grid to build; the box
+ * tests grow as the square of the blocks (some 10^5 for a 2000-point edge, still faster there than the grid was).
+ * Which segments are looked at does not change the answer: the least distance, at the first point in order
+ * that has it.
  */
 export function ringEdgeClearance(points: readonly SectionPoint[], runs: readonly Pick<OutlineRun, 'points'>[], limit: number): { d: number; p: SectionPoint } {
   let at = points[0] ?? { y: 0, z: 0 };
@@ -85,84 +121,82 @@ export function ringEdgeClearance(points: readonly SectionPoint[], runs: readonl
   if (!(limit > 0) || n === 0) return { d: limit, p: at };
   // Segment ends, flat: ay, az, by, bz.
   const seg = new Float64Array(4 * n);
-  let minY = Infinity;
-  let minZ = Infinity;
-  let maxY = -Infinity;
-  let maxZ = -Infinity;
   let s = 0;
   for (const run of runs) {
     const q = run.points;
     for (let k = 0; k + 1 < q.length; k++, s += 4) {
-      const a = q[k]!;
-      const b = q[k + 1]!;
-      seg[s] = a.y;
-      seg[s + 1] = a.z;
-      seg[s + 2] = b.y;
-      seg[s + 3] = b.z;
-      minY = Math.min(minY, a.y, b.y);
-      maxY = Math.max(maxY, a.y, b.y);
-      minZ = Math.min(minZ, a.z, b.z);
-      maxZ = Math.max(maxZ, a.z, b.z);
+      seg[s] = q[k]!.y;
+      seg[s + 1] = q[k]!.z;
+      seg[s + 2] = q[k + 1]!.y;
+      seg[s + 3] = q[k + 1]!.z;
     }
   }
-  // Cells no narrower than the limit (so the 3 x 3 around a point reach it), at most 512 a side for a tiny limit.
-  const cell = Math.max(limit, (maxY - minY) / 512, (maxZ - minZ) / 512);
-  const cols = Math.floor((maxY - minY) / cell) + 1;
-  const rows = Math.floor((maxZ - minZ) / cell) + 1;
-  const range = new Int32Array(4 * n);
-  const count = new Int32Array(cols * rows + 1);
-  for (let k = 0; k < n; k++) {
-    const i0 = Math.floor((Math.min(seg[4 * k]!, seg[4 * k + 2]!) - minY) / cell);
-    const i1 = Math.floor((Math.max(seg[4 * k]!, seg[4 * k + 2]!) - minY) / cell);
-    const j0 = Math.floor((Math.min(seg[4 * k + 1]!, seg[4 * k + 3]!) - minZ) / cell);
-    const j1 = Math.floor((Math.max(seg[4 * k + 1]!, seg[4 * k + 3]!) - minZ) / cell);
-    range[4 * k] = i0;
-    range[4 * k + 1] = i1;
-    range[4 * k + 2] = j0;
-    range[4 * k + 3] = j1;
-    for (let i = i0; i <= i1; i++) for (let j = j0; j <= j1; j++) count[i * rows + j + 1]!++;
-  }
-  for (let c = 1; c <= cols * rows; c++) count[c]! += count[c - 1]!;
-  const fill = count.slice(0, cols * rows);
-  const members = new Int32Array(count[cols * rows]!);
-  for (let k = 0; k < n; k++) {
-    for (let i = range[4 * k]!; i <= range[4 * k + 1]!; i++) for (let j = range[4 * k + 2]!; j <= range[4 * k + 3]!; j++) members[fill[i * rows + j]!++] = k;
-  }
+  const segBoxes = blockBoxes(
+    n,
+    (k) => Math.min(seg[4 * k]!, seg[4 * k + 2]!),
+    (k) => Math.max(seg[4 * k]!, seg[4 * k + 2]!),
+    (k) => Math.min(seg[4 * k + 1]!, seg[4 * k + 3]!),
+    (k) => Math.max(seg[4 * k + 1]!, seg[4 * k + 3]!),
+  );
+  const ptBoxes = blockBoxes(
+    points.length,
+    (k) => points[k]!.y,
+    (k) => points[k]!.y,
+    (k) => points[k]!.z,
+    (k) => points[k]!.z,
+  );
+  const segBlocks = segBoxes.length / 4;
+  // The blocks of segments near the block of points in hand.
+  const near = new Int32Array(segBlocks);
   // Squared distances compared; the one square root at the end gives the same figure.
   let best2 = limit * limit;
-  for (const p of points) {
-    const pi = Math.floor((p.y - minY) / cell);
-    const pj = Math.floor((p.z - minZ) / cell);
-    const j0 = Math.max(0, pj - 1);
-    const j1 = Math.min(rows - 1, pj + 1);
-    if (j0 > j1) continue;
-    for (let i = Math.max(0, pi - 1); i <= Math.min(cols - 1, pi + 1); i++) {
-      // Cell i * rows + j holds members count[that] up to count[that + 1]: cells j0..j1 of column i are one run
-      // of members, walked in one loop (the same segments in the same order as cell by cell, with less looping).
-      for (let m = count[i * rows + j0]!, end = count[i * rows + j1 + 1]!; m < end; m++) {
-        const o = 4 * members[m]!;
-        const ay = seg[o]!;
-        const az = seg[o + 1]!;
-        const vy = seg[o + 2]! - ay;
-        const vz = seg[o + 3]! - az;
-        const l2 = vy * vy + vz * vz;
-        const wy = p.y - ay;
-        const wz = p.z - az;
-        const along = wy * vy + wz * vz;
-        let d2: number;
-        if (along <= 0) d2 = wy * wy + wz * wz;
-        else if (along >= l2) d2 = (wy - vy) * (wy - vy) + (wz - vz) * (wz - vz);
-        else {
-          // Foot inside the segment: the squared distance times l2 needs no division, and most segments of
-          // the cells are far off; the margin covers rounding, so only those that may be nearer are worked out.
-          const w2 = wy * wy + wz * wz;
-          if (w2 * l2 - along * along > best2 * l2 + 1e-9 * w2 * l2) continue;
-          const t = along / l2;
-          const dy = wy - t * vy;
-          const dz = wz - t * vz;
-          d2 = dy * dy + dz * dz;
+  let reach = limit + CLEARANCE_ROUNDING_MM;
+  for (let pb = 0; 4 * pb < ptBoxes.length; pb++) {
+    const pMinY = ptBoxes[4 * pb]!;
+    const pMaxY = ptBoxes[4 * pb + 1]!;
+    const pMinZ = ptBoxes[4 * pb + 2]!;
+    const pMaxZ = ptBoxes[4 * pb + 3]!;
+    let nearCount = 0;
+    for (let sb = 0; sb < segBlocks; sb++) {
+      const o = 4 * sb;
+      if (!(segBoxes[o]! - pMaxY > reach || pMinY - segBoxes[o + 1]! > reach || segBoxes[o + 2]! - pMaxZ > reach || pMinZ - segBoxes[o + 3]! > reach)) near[nearCount++] = sb;
+    }
+    for (let k = pb * CLEARANCE_BLOCK, kEnd = Math.min(points.length, k + CLEARANCE_BLOCK); k < kEnd; k++) {
+      const p = points[k]!;
+      const py = p.y;
+      const pz = p.z;
+      for (let c = 0; c < nearCount; c++) {
+        const sb = near[c]!;
+        const o = 4 * sb;
+        if (segBoxes[o]! - py > reach || py - segBoxes[o + 1]! > reach || segBoxes[o + 2]! - pz > reach || pz - segBoxes[o + 3]! > reach) continue;
+        for (let m = sb * CLEARANCE_BLOCK, mEnd = Math.min(n, m + CLEARANCE_BLOCK); m < mEnd; m++) {
+          const ay = seg[4 * m]!;
+          const az = seg[4 * m + 1]!;
+          const vy = seg[4 * m + 2]! - ay;
+          const vz = seg[4 * m + 3]! - az;
+          const l2 = vy * vy + vz * vz;
+          const wy = py - ay;
+          const wz = pz - az;
+          const along = wy * vy + wz * vz;
+          let d2: number;
+          if (along <= 0) d2 = wy * wy + wz * wz;
+          else if (along >= l2) d2 = (wy - vy) * (wy - vy) + (wz - vz) * (wz - vz);
+          else {
+            // Foot inside the segment: the squared distance times l2 needs no division, and most segments of
+            // the block are far off; the margin covers rounding, so only those that may be nearer are worked out.
+            const w2 = wy * wy + wz * wz;
+            if (w2 * l2 - along * along > best2 * l2 + 1e-9 * w2 * l2) continue;
+            const t = along / l2;
+            const dy = wy - t * vy;
+            const dz = wz - t * vz;
+            d2 = dy * dy + dz * dz;
+          }
+          if (d2 < best2) {
+            best2 = d2;
+            at = p;
+            reach = Math.sqrt(best2) + CLEARANCE_ROUNDING_MM;
+          }
         }
-        if (d2 < best2) [best2, at] = [d2, p];
       }
     }
   }

@@ -208,9 +208,9 @@ function distanceToLoop(p: SectionPoint, loop: readonly SectionPoint[]): number 
 
 describe('ringEdgeClearance', () => {
   const edge = (pts: readonly SectionPoint[]): EdgePoint[] => pts.map((q) => ({ y: q.y, z: q.z, ny: 0, nz: 0, rate: 0, bevel: 0, girthMm: 0, setInMm: 0, edge: 'hull', corner: false }));
-  // Analytic: the distance from a point to a segment, taken over every pair (no grid), is what the grid of
-  // cells at least `limit` wide must find whenever it is below the limit; points and runs at random, some
-  // runs long and sparse, some short and dense, limits from well below to well above the segment lengths.
+  // Analytic: the distance from a point to a segment, taken over every pair (no blocks), is what the search
+  // by blocks of points and segments must find whenever it is below the limit; points and runs at random,
+  // some runs long and sparse, some short and dense, limits from well below to well above the segment lengths.
   const segmentDistance = (p: SectionPoint, a: SectionPoint, b: SectionPoint): number => {
     const vy = b.y - a.y;
     const vz = b.z - a.z;
@@ -221,9 +221,9 @@ describe('ringEdgeClearance', () => {
   const pt = fc.record({ y: fc.double({ min: -2000, max: 2000, noNaN: true }), z: fc.double({ min: -500, max: 3000, noNaN: true }) });
   const step = fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }));
   const near = fc.record({ run: fc.nat(), k: fc.nat(), t: fc.double({ min: 0, max: 1, noNaN: true }), dy: fc.double({ min: -1, max: 1, noNaN: true }), dz: fc.double({ min: -1, max: 1, noNaN: true }) });
-  it('finds a segment in each of the eight cells around the point', () => {
-    // Analytic: a point in the middle of a cell (the grid set by two far corner runs) and one short run 80 mm
-    // off it toward each neighbouring cell in turn; the limit, and so the cells, 100 mm.
+  it('finds a segment in each of the eight directions around the point', () => {
+    // Analytic: a point between two far corner runs and one short run 80 mm off it toward each of the eight
+    // directions in turn; the limit 100 mm.
     const asRun = (pts: SectionPoint[]): { points: ReturnType<typeof edge> } => ({ points: edge(pts) });
     const p = { y: 550, z: 550 };
     for (const [di, dj] of [[-1, -1], [-1, 0], [-1, 1], [0, -1], [0, 1], [1, -1], [1, 0], [1, 1]] as const) {
@@ -232,6 +232,22 @@ describe('ringEdgeClearance', () => {
       const runs = [asRun([{ y: 0, z: 0 }, { y: 1, z: 0 }]), asRun([{ y: 1200, z: 1200 }, { y: 1201, z: 1200 }]), asRun([q, { y: q.y + 1e-3 * dj, z: q.z - 1e-3 * di }])];
       expectClose(ringEdgeClearance([p], runs, 100).d, 80, 1e-6, `run toward (${di}, ${dj})`);
     }
+  });
+
+  it('looks past the blocks of points and segments that are far apart, at the first point nearest', () => {
+    // Analytic: a straight run along z = 0 from y = 0 to 1000 mm in 10 mm steps (many blocks of segments)
+    // and points 60 mm above it every 10 mm (many blocks of points): every point is 60 mm off, the first
+    // one named. One point dropped to 30 mm, far along: 30 mm, at that point (the blocks far from it passed over).
+    const run = { points: edge(range(0, 1000, 10).map((y) => ({ y, z: 0 }))) };
+    const points = range(5, 905, 10).map((y) => ({ y, z: 60 }));
+    const even = ringEdgeClearance(points, [run], 100);
+    expectClose(even.d, 60, 1e-9, 'every point 60 mm off');
+    expect(even.p).toBe(points[0]);
+    const low = points.map((p, k) => (k === 70 ? { y: p.y, z: 30 } : p));
+    const got = ringEdgeClearance(low, [run], 100);
+    expectClose(got.d, 30, 1e-9, 'the dropped point');
+    expect(got.p).toBe(low[70]);
+    expect(ringEdgeClearance(points, [run], 50)).toEqual({ d: 50, p: points[0] });
   });
 
   it('finds the least distance below the limit exactly as a test of every pair does', () => {
