@@ -16,7 +16,8 @@ export interface Reply {
 }
 
 /** `'GET /api/hulls'` → a reply, or a function of the request giving one (for answers that change). */
-export type Handlers = Record<string, Reply | ((call: RecordedCall) => Reply)>;
+/** A reply, or a function of the call giving one; a promise of one holds the answer back until it settles. */
+export type Handlers = Record<string, Reply | ((call: RecordedCall) => Reply | Promise<Reply>)>;
 
 let unexpected: string[] = [];
 
@@ -59,7 +60,7 @@ export function stubApi(handlers: Handlers) {
       unexpected.push(`${method} ${url.pathname}`);
       return jsonResponse(500, { error: { code: 'no_stub', message: `No stub for ${method} ${url.pathname}` } });
     }
-    const reply = typeof handler === 'function' ? handler(call) : handler;
+    const reply = typeof handler === 'function' ? await handler(call) : handler;
     return jsonResponse(reply.status ?? 200, reply.body);
   });
   vi.stubGlobal('fetch', fetchStub);

@@ -54,6 +54,25 @@ describe('Build log', { timeout: 30000 }, () => {
     expect(upload.getAttribute('capture')).toBe('environment');
   });
 
+  it('keeps a note typed while the last mark is still being saved, for the next mark', async () => {
+    // The answer to the first mark is held back until the second note is typed.
+    let answer: (reply: { status: number; body: unknown }) => void = () => undefined;
+    const api = server('helper', frameState({ done: ['patterned'], next: 'cut' }), {
+      'POST /api/hulls/3/build-log/events': () => new Promise((resolve) => (answer = resolve)),
+    });
+    const { user } = renderApp('/hulls/3/build-log');
+    await user.click(await screen.findByRole('button', { name: /Frame 3/ }));
+    await user.type(await screen.findByLabelText('Note (optional)'), 'First note');
+    await user.click(screen.getByRole('button', { name: 'Mark cut' }));
+    expect(api.writes()).toMatchObject([{ body: { stage: 'cut', note: 'First note' } }]);
+    const field = screen.getByLabelText('Note (optional)') as HTMLTextAreaElement;
+    await user.clear(field);
+    await user.type(field, 'Second note');
+    answer({ status: 201, body: { event: {} } });
+    await expect.poll(() => api.count('GET', '/api/hulls/3/build-log/parts/pt-frame-3')).toBeGreaterThan(1);
+    expect((screen.getByLabelText('Note (optional)') as HTMLTextAreaElement).value).toBe('Second note');
+  });
+
   it('shows the epoxy caution before filleting and the server’s refusal in plain words', async () => {
     server('builder', frameState({ done: ['patterned', 'cut', 'laminated', 'shaped', 'test-fitted', 'tacked'], next: 'filleted' }), {
       'POST /api/hulls/3/build-log/events': apiError(409, 'already_done', 'filleted is already marked done for this part', { field: 'stage' }),

@@ -16,6 +16,9 @@ import { PhotoStrip } from './photo-strip';
 
 const input = 'min-h-12 rounded-lg border-2 border-edge bg-surface px-3 text-lg';
 
+/** The material fields, empty. */
+const NO_MATERIAL = { plySheets: '', epoxyMl: '', fillerMl: '', tapeM: '' };
+
 /**
  * One part at the bench: a big button for the next stage (on a laminated part, one per layer until every
  * layer is cut), a note, material used, photos, and the history.
@@ -25,7 +28,7 @@ export function PartPanel({ hullId, partId, role, userId }: { hullId: number; pa
   const addEvent = useAddBuildEvent(hullId);
   const upload = useUploadBuildPhotos(hullId);
   const [note, setNote] = useState('');
-  const [used, setUsed] = useState({ plySheets: '', epoxyMl: '', fillerMl: '', tapeM: '' });
+  const [used, setUsed] = useState(NO_MATERIAL);
   const [error, setError] = useState<string | null>(null);
   const panel = useRef<HTMLElement>(null);
   const loaded = part.isSuccess;
@@ -49,11 +52,14 @@ export function PartPanel({ hullId, partId, role, userId }: { hullId: number; pa
 
   const send = async (stage: BuildStage, action: 'done' | 'reopened', layerIndex: number | null = null) => {
     setError(null);
+    const sentNote = note;
+    const sentUsed = used;
     const amounts = Object.fromEntries(Object.entries(used).filter(([, v]) => v.trim() !== '').map(([k, v]) => [k, Number(v)]));
     try {
       await addEvent.mutateAsync({ partId, layerIndex, stage, action, note, used: amounts });
-      setNote('');
-      setUsed({ plySheets: '', epoxyMl: '', fillerMl: '', tapeM: '' });
+      // Cleared only if unchanged: what was typed while this mark was saving belongs to the next mark.
+      setNote((current) => (current === sentNote ? '' : current));
+      setUsed((current) => (current === sentUsed ? NO_MATERIAL : current));
     } catch (err) {
       setError(describeError(err));
     }
