@@ -226,3 +226,21 @@ export function vBottom(sheerY: number, sheerZ: number): PrismaticPoint[] {
     { id: 'sheer', name: 'Sheer', role: 'sheer', y: sheerY, z: sheerZ },
   ];
 }
+
+/**
+ * The box of the drawing tests: a prismatic section with the keel at (0, 0), a square chine at (500, 0) and
+ * the sheer straight above it at (500, 400), stations every 1000 mm from 0 to 4000 named "St 0" to "St 4",
+ * 6 mm skin outside the offsets, the design waterline at 200 mm. Its deducted section is a rectangle.
+ */
+export function boxHull(): HullLinesInput {
+  const hull = prismaticHull({
+    xs: [0, 1000, 2000, 3000, 4000],
+    points: [
+      { id: 'keel', name: 'Keel', role: 'keel', y: 0, z: 0 },
+      { id: 'chine', name: 'Chine', role: 'chine', y: 500, z: 0 },
+      { id: 'sheer', name: 'Sheer', role: 'sheer', y: 500, z: 400 },
+    ],
+    skinMm: 6,
+  });
+  return { ...hull, notation: { unit: 'mm', precision: '0.5mm' }, stations: hull.stations.map((s, i) => ({ ...s, name: `St ${i}` })), designWaterlineZ: 200 };
+}

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { boxHull } from '../geometry/analytic-hulls';
 import { hullBuild } from '../../shared/geometry/hull';
 import type { HullLinesInput } from '../../shared/geometry/hull-schema';
 import { planSchema, PLAN_SCHEMA_VERSION, type Plan } from '../../shared/geometry/plan-schema';
@@ -21,19 +22,7 @@ import { offsetMove } from '../../src/features/plan/editor/offset-actions';
  * outside the offsets. A bulkhead in it is the box less the skin and the 2 mm fillet clearance, so its
  * widest half-breadth is 500 - 6 - 2 = 492 mm.
  */
-const stations = [0, 1000, 2000, 3000, 4000];
-const cells = (p: { y: number; z: number }) => Object.fromEntries(stations.map((_, i) => [`st${i}`, p]));
-const boxLines: HullLinesInput = {
-  notation: { unit: 'mm', precision: '0.5mm' },
-  stations: stations.map((x, i) => ({ id: `st${i}`, name: `St ${i}`, x })),
-  lines: [
-    { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', knuckle: { fromX: null, toX: null }, cells: cells({ y: 0, z: 0 }) },
-    { id: 'chine', name: 'Chine', kind: 'point', role: 'chine', knuckle: { fromX: null, toX: null }, cells: cells({ y: 500, z: 0 }) },
-    { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', knuckle: { fromX: null, toX: null }, cells: cells({ y: 500, z: 400 }) },
-  ],
-  skin: { offsetsTo: 'outside', defaultThicknessMm: 6 },
-  designWaterlineZ: 200,
-};
+const boxLines: HullLinesInput = boxHull();
 
 const common = { stationId: 'st2', thicknessMm: 12, layers: [{ thicknessMm: 12 }], filletClearanceMm: 2, markedFace: 'aft' };
 const plan: Plan = planSchema.parse({

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { boxHull } from '../geometry/analytic-hulls';
 import { frameOfPart } from '../../shared/geometry/frame';
 import type { PartGeometry } from '../../shared/geometry/frame-types';
 import { hullBuild, type BuiltHull } from '../../shared/geometry/hull';
@@ -16,17 +17,7 @@ import { labelsThinned, partShapes, type PartShapes } from '../../src/features/p
  * rectangle y in [-(500 - 6 - c), 500 - 6 - c], z in [6 + c, 400]; every bevel is square (the surface does
  * not move along x). The bands are L-shaped strips whose areas follow from the widths.
  */
-const boxLines: HullLinesInput = {
-  notation: { unit: 'mm', precision: '0.5mm' },
-  stations: [0, 1000, 2000, 3000, 4000].map((x, i) => ({ id: `st${i}`, name: `St ${i}`, x })),
-  lines: [
-    { id: 'keel', name: 'Keel', kind: 'point', role: 'keel', knuckle: { fromX: null, toX: null }, cells: cells({ y: 0, z: 0 }) },
-    { id: 'chine', name: 'Chine', kind: 'point', role: 'chine', knuckle: { fromX: null, toX: null }, cells: cells({ y: 500, z: 0 }) },
-    { id: 'sheer', name: 'Sheer', kind: 'point', role: 'sheer', knuckle: { fromX: null, toX: null }, cells: cells({ y: 500, z: 400 }) },
-  ],
-  skin: { offsetsTo: 'outside', defaultThicknessMm: 6 },
-  designWaterlineZ: 200,
-};
+const boxLines: HullLinesInput = boxHull();
 
 function cells(p: { y: number; z: number }) {
   return Object.fromEntries([0, 1, 2, 3, 4].map((i) => [`st${i}`, p]));

@@ -14,6 +14,7 @@ import { deviationShort, deviationWords } from '../../format';
 import { useLinesCheck } from '../../hooks/use-lines-check';
 import { DrawingStage } from './drawing-stage';
 import { KonvaLabel } from './konva-label';
+import { EmptyNote } from '../../../../components/ui/empty-note';
 
 export interface FairingViewProps {
   plan: Plan;
@@ -93,7 +94,7 @@ export function FairingView({ plan, hull, notation }: FairingViewProps) {
   const lineFlags = choice ? check.lineFlags.filter((f) => f.lineId === choice.lineId || (f.kind === 'crossing' && f.otherLineId === choice.lineId)) : [];
   const flagged = shapes?.cells.filter((c) => c.flag) ?? [];
 
-  if (!choice || !shapes) return <p className="rounded-lg border-2 border-dashed border-rule bg-surface p-5 text-lg text-muted">The hull has no lines to fair yet.</p>;
+  if (!choice || !shapes) return <EmptyNote>The hull has no lines to fair yet.</EmptyNote>;
 
   return (
     <section aria-labelledby="fairing-view-heading" className="flex flex-col gap-3">

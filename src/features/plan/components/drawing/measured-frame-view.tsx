@@ -23,6 +23,7 @@ import { usePlanEditor } from '../../hooks/use-plan-editor';
 import { DrawingStage } from './drawing-stage';
 import { KonvaLabel } from './konva-label';
 import { MeasuredPointsTable } from './measured-points-table';
+import { EmptyNote } from '../../../../components/ui/empty-note';
 
 export interface MeasuredFrameViewProps {
   plan: Plan;
@@ -218,7 +219,7 @@ export function MeasuredFrameView({ plan, hull, readOnly, notation, partId }: Me
           </SelectField>
         </div>
       )}
-      {frames.length === 0 && <p className="rounded-lg border-2 border-dashed border-rule bg-surface p-5 text-lg text-muted">No frame has been measured on this hull yet.</p>}
+      {frames.length === 0 && <EmptyNote>No frame has been measured on this hull yet.</EmptyNote>}
       {!readOnly && (frames.length === 0 || showNew) && (
         <NewMeasuredFrame
           plan={plan}

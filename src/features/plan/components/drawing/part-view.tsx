@@ -15,6 +15,7 @@ import { partKindLabels } from '../../editor/part-defaults';
 import { lengthWords } from '../../format';
 import { DrawingStage } from './drawing-stage';
 import { KonvaLabel } from './konva-label';
+import { EmptyNote } from '../../../../components/ui/empty-note';
 
 export interface PartViewProps {
   plan: Plan;
@@ -168,7 +169,7 @@ export function PartView({ plan, hull, notation, partId }: PartViewProps) {
     [geometry, computed, layer, dimensions, notation],
   );
 
-  if (!part) return <p className="rounded-lg border-2 border-dashed border-rule bg-surface p-5 text-lg text-muted">This hull has no parts yet. Add one on the Frames screen.</p>;
+  if (!part) return <EmptyNote>This hull has no parts yet. Add one on the Frames screen.</EmptyNote>;
 
   return (
     <section aria-labelledby="part-view-heading" className="flex flex-col gap-3">

@@ -14,6 +14,7 @@ import { useEditor, usePlanEditor } from '../../hooks/use-plan-editor';
 import { LongitudinalsSection } from './longitudinals-section';
 import { PartForm } from './part-form';
 import { PartResults, partStatusWords } from './part-results';
+import { EmptyNote } from '../../../../components/ui/empty-note';
 
 const toneClass = { ok: 'text-ok', bad: 'text-danger-strong', warn: 'text-caution', quiet: 'text-muted' };
 
@@ -30,7 +31,7 @@ function PartsList({ selectedId, onSelect }: { selectedId: string | null; onSele
   const stations = useEditor((s) => s.plan.lines.stations);
   const results = usePartsResults(hull.id);
   const available = results.isSuccess;
-  if (parts.length === 0) return <p className="rounded-lg border-2 border-dashed border-rule bg-surface p-5 text-lg text-muted">No parts yet.</p>;
+  if (parts.length === 0) return <EmptyNote>No parts yet.</EmptyNote>;
   return (
     <div className="overflow-x-auto rounded-xl border border-rule bg-surface" role="region" aria-label="Parts" tabIndex={0}>
       <table className="min-w-full border-collapse text-left">

@@ -15,6 +15,7 @@ import { revisionSavedInCache } from '../../api/save-revision';
 import { openSnapshot } from '../../editor/initial-snapshot';
 import { useEditor, usePlanEditor } from '../../hooks/use-plan-editor';
 import { RevisionChanges } from './revision-changes';
+import { EmptyNote } from '../../../../components/ui/empty-note';
 
 function RestoreButton({ revision, latestId }: { revision: RevisionSummary; latestId: number }) {
   const { hull, store } = usePlanEditor();
@@ -97,7 +98,7 @@ export function HistoryScreen() {
         <p className="max-w-prose text-muted">Every saved state of the plan, newest first. A revision never changes: restoring an old one saves it again as a new one.</p>
       </div>
       {list.length === 0 ? (
-        <p className="rounded-lg border-2 border-dashed border-rule bg-surface p-5 text-lg text-muted">No revision is saved yet. Press Save revision when the lines are as you want them.</p>
+        <EmptyNote>No revision is saved yet. Press Save revision when the lines are as you want them.</EmptyNote>
       ) : (
         <div className="overflow-x-auto rounded-xl border border-rule bg-surface" role="region" aria-label="Revision list" tabIndex={0}>
           <table className="min-w-full border-collapse text-left">

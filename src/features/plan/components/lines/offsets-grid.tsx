@@ -7,6 +7,7 @@ import { useEditor, usePlanEditor } from '../../hooks/use-plan-editor';
 import { GridRow, type CellCommit } from './grid-row';
 import { gridRowSpecs } from './grid-rows';
 import { createGridStore } from './grid-store';
+import { EmptyNote } from '../../../../components/ui/empty-note';
 
 /** Widths of the row headers and of each station's column. */
 const ROW_HEADER_REM = 13;
@@ -218,13 +219,13 @@ export function OffsetsGrid({ notation, readOnly, check, onMessage }: OffsetsGri
 
   if (stations.length === 0 || rows.length === 0) {
     return (
-      <p className="rounded-lg border-2 border-dashed border-rule bg-surface p-5 text-lg text-muted">
+      <EmptyNote>
         {stations.length === 0 && rows.length === 0
           ? 'The table is empty. Add stations and lines below, paste a table from a spreadsheet once they are there, or import a CSV file of offsets.'
           : stations.length === 0
             ? 'Add a station (below) to give the table its first column.'
             : 'Add a line (below) to give the table its first row.'}
-      </p>
+      </EmptyNote>
     );
   }
 
