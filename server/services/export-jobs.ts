@@ -69,7 +69,7 @@ export function exportJobStart(
 function jobOf(hullId: number, userId: number, jobId: string): Job {
   const job = jobs.get(jobId);
   // Someone else's job, or one on another hull, is as unknown as one that never was.
-  if (!job || job.hullId !== hullId || job.userId !== userId) throw notFound('No such export: it may have been made more than 10 minutes ago. Start it again.');
+  if (!job || job.hullId !== hullId || job.userId !== userId) throw notFound('No such export: it was made more than 10 minutes ago, or the server has restarted since it was started. Start it again.');
   return job;
 }
 

@@ -88,4 +88,40 @@ describe('Downloads', () => {
     expect(within(zipRow).queryByRole('progressbar')).toBeNull();
     expect(clicked).toEqual(['/api/hulls/3/exports/jobs/job-1/file']);
   });
+
+  it('says so when the server has lost the job (a restart), stops asking, and lets it be started again', { timeout: 15000 }, async () => {
+    const status: ExportJobStatus = { id: 'job-1', state: 'running', done: 2, total: 11, unit: 'files', fileName: 'tidewrack-everything-r7.zip', bytes: null, error: null };
+    let polls = 0;
+    let lost = false;
+    const api = server({
+      'POST /api/hulls/3/exports/jobs': { status: 202, body: { job: status } },
+      'GET /api/hulls/3/exports/jobs/job-1': () => {
+        polls += 1;
+        if (!lost) return { body: { job: status } };
+        return { status: 404, body: { error: { code: 'not_found', message: 'No such export: it was made more than 10 minutes ago, or the server has restarted since it was started. Start it again.' } } };
+      },
+    });
+    const view = renderApp('/hulls/3/downloads');
+    const table = await screen.findByRole('table', { name: 'Exports of this hull' });
+    const zipRow = within(table).getAllByRole('row').at(-1)!;
+    const button = within(zipRow).getByRole('button', { name: 'Download' });
+    await view.user.click(button);
+    await waitFor(() => expect(polls).toBeGreaterThan(1));
+    expect(button.getAttribute('aria-busy')).toBe('true');
+
+    lost = true;
+    await within(zipRow).findByText(/the server has restarted since it was started\. Start it again\./, {}, { timeout: 3000 });
+    expect(within(zipRow).getByText('Lost track of the file')).toBeTruthy();
+    await waitFor(() => expect(button.getAttribute('aria-busy')).toBeNull());
+    expect((button as HTMLButtonElement).disabled).toBe(false);
+    // No more asking once the server has said it does not know the job.
+    const heard = polls;
+    await new Promise((r) => setTimeout(r, 1000));
+    expect(polls).toBe(heard);
+
+    lost = false;
+    await view.user.click(button);
+    await waitFor(() => expect(api.calls.filter((c) => c.method === 'POST')).toHaveLength(2));
+    await waitFor(() => expect(within(zipRow).queryByText('Lost track of the file')).toBeNull());
+  });
 });

@@ -13,7 +13,9 @@ export function getExportJobQueryOptions(hullId: number, jobId: string) {
   return queryOptions({
     queryKey: ['hulls', hullId, 'exports', 'jobs', jobId],
     queryFn: ({ signal }) => getExportJob(hullId, jobId, { signal }),
-    refetchInterval: (query) => (query.state.data?.job.state === 'running' || !query.state.data ? EXPORT_JOB_POLL_MS : false),
+    // Asked again while it runs, and never once the server has said it does not know the job (it restarted,
+    // or the job was forgotten): asking again would only hear the same, every 300 ms, for as long as the tab is open.
+    refetchInterval: (query) => (query.state.status !== 'error' && (query.state.data?.job.state === 'running' || !query.state.data) ? EXPORT_JOB_POLL_MS : false),
   });
 }
 

@@ -47,7 +47,8 @@ export function ExportJobButton({ hullId, start, children, disabled = false }: {
     }
   }, [status?.state, jobId, hullId]);
 
-  const running = starter.isPending || (jobId !== null && (!status || status.state === 'running'));
+  // A job the server lost (a restart forgets jobs in memory) is not running any more: the button is free to start it again.
+  const running = starter.isPending || (jobId !== null && !job.isError && (!status || status.state === 'running'));
   const begin = () => {
     setSlow(false);
     setJobId(null);
