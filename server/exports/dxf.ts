@@ -162,9 +162,22 @@ function grainHeads(w: DxfEntities, a: SectionPoint, b: SectionPoint): void {
   }
 }
 
-/** Text a DXF reader of any age reads: printable ASCII only ('°' written as ' deg'). */
-function dxfAscii(text: string): string {
-  return text.replace(/°/g, ' deg').replace(/[^\x20-\x7e]/g, '?');
+/**
+ * Text as an R2000 file carries it: the file stays ASCII, and a character past ASCII is written as the DXF's
+ * own escape, a backslash, "U+" and its code point in four hex digits, so "Wręga 3" reaches a CAD program as
+ * typed rather than as "Wr?ga 3". '°' is written as ' deg', which the simplest router programs (that show an
+ * escape as it is) read too. A character past four hex digits (an emoji), a lone surrogate and control characters
+ * become "?".
+ */
+export function dxfText(text: string): string {
+  let out = '';
+  for (const ch of text.replace(/°/g, ' deg')) {
+    const code = ch.codePointAt(0)!;
+    if (code >= 0x20 && code <= 0x7e) out += ch;
+    else if (code >= 0xa0 && code <= 0xffff && !(code >= 0xd800 && code <= 0xdfff)) out += `\\U+${code.toString(16).toUpperCase().padStart(4, '0')}`;
+    else out += '?';
+  }
+  return out;
 }
 
 /** A number as written: up to 8 decimals, no trailing zeros, never "-0". */
@@ -264,7 +277,7 @@ class DxfEntities {
   }
 
   text(text: string, at: SectionPoint, heightMm: number, rotationDeg: number, align: 'start' | 'centre' | 'end'): void {
-    const s = dxfAscii(text);
+    const s = dxfText(text);
     if (!s.trim()) return;
     this.head('TEXT', DXF_LAYERS.text, 'AcDbText');
     this.xy(at);

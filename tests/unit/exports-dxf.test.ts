@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import DxfParser from 'dxf-parser';
 import makerjs from 'makerjs';
-import { DXF_LAYERS, dxfOfDrawings, dxfWrite } from '../../server/exports/dxf';
+import { DXF_LAYERS, dxfOfDrawings, dxfText, dxfWrite } from '../../server/exports/dxf';
 import { type TemplateDrawing, bulgeArc, drawingAsSeen, drawingBounds } from '../../shared/geometry/drawing';
 import type { Bounds } from '../../shared/geometry/polygon';
-import { circleDrawing, rectangleDrawing, ringFrameDrawing } from './exports-fixtures';
+import { circleDrawing, rectangleDrawing, ringFrameDrawing, titleOf } from './exports-fixtures';
 
 interface Vertex {
   x: number;
@@ -199,5 +199,23 @@ describe('dxfOfDrawings read back with dxf-parser', () => {
     const set = (vs: Vertex[], dy: number, dz: number): string[] => vs.map((v) => `${(v.x - dy).toFixed(3)},${(v.y - dz).toFixed(3)}`).sort();
     expect(set(oursLoop.vertices!, p.shiftY, p.shiftZ)).toEqual(set(theirsLoop.vertices!, 0, 0));
     expect(theirs.header.$INSUNITS).toBe(4);
+  });
+
+  it('writes names past ASCII as the DXF escape of their code points, the file itself all ASCII', () => {
+    const disc = circleDrawing(50);
+    const label = (text: string, z: number) => ({ anchor: { y: 0, z }, text, heightMm: 5, rotationDeg: 0, align: 'start' as const, purpose: 'note' as const });
+    const d: TemplateDrawing = { ...disc, title: titleOf({ partName: 'Wręga 3', hullName: 'Żuraw' }), labels: [label('Шп 3 — Žebro', 10), label('bevel 5° 😀\u0007', 20)] };
+    const file = dxfOfDrawings([d], { units: 'mm' });
+    expect([...file].every((b) => b === 10 || b === 13 || (b >= 0x20 && b <= 0x7e))).toBe(true);
+    const texts = parse(file).entities.filter((e) => e.type === 'TEXT').map((e) => e.text!);
+    // Autodesk DXF Reference (from memory): in a file before R2007 a string carries a character past ASCII as
+    // \U+ and four hex digits of its Unicode code point. Unicode: U+0119 is ę, U+017B Ż, U+0428 Ш, U+043F п,
+    // U+2014 the em dash, U+017D Ž. Read back with dxf-parser, which hands the string over as written.
+    expect(texts).toContain('\\U+0428\\U+043F 3 \\U+2014 \\U+017Debro');
+    expect(texts.some((t) => t.includes('Wr\\U+0119ga 3'))).toBe(true);
+    expect(texts.some((t) => t.includes('\\U+017Buraw'))).toBe(true);
+    // '°' as words; past four hex digits (an emoji) and a control character, a question mark each.
+    expect(texts).toContain('bevel 5 deg ??');
+    expect(dxfText('\ud800x')).toBe('?x');
   });
 });
