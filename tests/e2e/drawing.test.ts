@@ -51,6 +51,17 @@ function withWaterline(plan: Plan): Plan {
   return { ...plan, lines: { ...plan.lines, lines: [...plan.lines.lines, { id: 'ln-wl-500', name: 'WL 500', kind: 'waterline', z: 500, knuckle: null, cells }] } };
 }
 
+/** A builder signed in, with a copy of the demo hull that has WL 500 added (`withWaterline`). */
+async function builderWithWaterlineCopy(name: string) {
+  const { page, consoleErrors } = await rig.newPage({ width: 1440, height: 1000 });
+  await signInThroughForm(page, builder.email, builder.password);
+  const demoId = await demoHullId(page);
+  const { plan: demoPlan } = await apiCall<{ plan: Plan }>(page, 'GET', `/api/hulls/${demoId}/plan`);
+  const plan = withWaterline(demoPlan);
+  const { hull } = await apiCall<{ hull: { id: number } }>(page, 'POST', `/api/hulls/${demoId}/copy`, { name: `${name} ${Date.now()}`, plan });
+  return { page, consoleErrors, plan, hull };
+}
+
 const viewportOf = async (page: Page, scope = page.getByTestId('body-plan')): Promise<StageView> =>
   JSON.parse((await scope.getByTestId('drawing-stage').getAttribute('data-viewport'))!) as StageView;
 
@@ -80,12 +91,7 @@ function differences(a: unknown, b: unknown): string[] {
 
 describe('Drawing in the browser', () => {
   it('a builder drags a waterline point: only its half-breadth changes, the table and the part follow, undo puts both back; zoom and fit keep the drawing in view', async () => {
-    const { page, consoleErrors } = await rig.newPage({ width: 1440, height: 1000 });
-    await signInThroughForm(page, builder.email, builder.password);
-    const demoId = await demoHullId(page);
-    const { plan: demoPlan } = await apiCall<{ plan: Plan }>(page, 'GET', `/api/hulls/${demoId}/plan`);
-    const plan = withWaterline(demoPlan);
-    const { hull } = await apiCall<{ hull: { id: number } }>(page, 'POST', `/api/hulls/${demoId}/copy`, { name: `Drawing test ${Date.now()}`, plan });
+    const { page, consoleErrors, plan, hull } = await builderWithWaterlineCopy('Drawing test');
     const { plan: start } = await apiCall<{ plan: Plan }>(page, 'GET', `/api/hulls/${hull.id}/plan`);
 
     await page.goto(`/hulls/${hull.id}`);
@@ -266,6 +272,94 @@ describe('Drawing in the browser', () => {
     expect(consoleErrors).toEqual([]);
   });
 
+  it('a builder steps through a section\'s points by key and moves one with the arrows: one step the way its cell allows, one undo a key', async () => {
+    const { page, consoleErrors, plan, hull } = await builderWithWaterlineCopy('Drawing keys test');
+    await page.goto(`/hulls/${hull.id}/drawing`);
+    await page.getByTestId('body-plan').locator('canvas').first().waitFor();
+    await page.getByRole('heading', { name: 'Station St 4' }).waitFor();
+
+    const drawing = page.getByRole('application').first();
+    const said = page.getByTestId('body-plan-announcement');
+    const value = async (label: string) => Number(await sideInput(page, label).inputValue());
+    const wlBefore = plan.lines.lines.find((l) => l.id === 'ln-wl-500')!.cells['st-4'] as number;
+    const sheerBefore = (plan.lines.lines.find((l) => l.id === 'ln-sheer') as PointLine).cells['st-4']!;
+    expect(await value('WL 500 at St 4')).toBe(wlBefore);
+
+    // With nothing chosen the arrows move the drawing.
+    await drawing.focus();
+    const start = await viewportOf(page);
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(async () => (await viewportOf(page)).offsetX).not.toBe(start.offsetX);
+    await page.keyboard.press('ArrowLeft');
+    const still = await viewportOf(page);
+
+    // N steps keel to sheer along the girth (the table lists WL 500 last, the section passes it before the sheer), and round again.
+    const stepped: string[] = [];
+    for (let i = 0; i < 5; i++) {
+      await page.keyboard.press('n');
+      stepped.push(await said.innerText());
+    }
+    expect(stepped.map((w) => w.split(' at ')[0])).toEqual(['Keel', 'Chine', 'WL 500', 'Sheer', 'Keel']);
+    expect(stepped[2]).toBe(`WL 500 at St 4: half-breadth ${wlBefore} mm. Point 3 of 4.`);
+    await page.keyboard.press('p');
+    await page.keyboard.press('p');
+    await expect.poll(() => said.innerText()).toMatch(/^WL 500 at St 4: /);
+    await rig.screenshot(page, 'drawing-06-point-chosen-by-key');
+
+    // St 4 is aft of midships, drawn left of the centreline: Left takes a point outboard there.
+    expect(bodyPlanSides(plan.lines).get('st-4')).toBe('aft');
+    await page.keyboard.press('ArrowLeft');
+    await expect.poll(() => value('WL 500 at St 4')).toBe(wlBefore + 1);
+    expect(await said.innerText()).toBe(`WL 500 at St 4: half-breadth ${wlBefore + 1} mm`);
+    await page.keyboard.press('Shift+ArrowLeft');
+    await expect.poll(() => value('WL 500 at St 4')).toBe(wlBefore + 11);
+    // A waterline point moves across only: Up leaves it as it is and says so.
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(() => said.innerText()).toMatch(/across only/);
+    expect(await value('WL 500 at St 4')).toBe(wlBefore + 11);
+    // The keys moved the point, not the drawing.
+    expect(await viewportOf(page)).toEqual(still);
+
+    // A sheer point moves either way: Up changes its height alone.
+    await page.keyboard.press('n');
+    await expect.poll(() => said.innerText()).toMatch(/^Sheer at St 4: /);
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(() => value('Sheer height at St 4')).toBe(sheerBefore.z + 1);
+    expect(await value('Sheer half-breadth at St 4')).toBe(sheerBefore.y);
+    // With the grid on, a key moves a grid step (10 mm for a metric hull).
+    await page.getByRole('button', { name: 'Snap to grid' }).click();
+    await drawing.focus();
+    await page.keyboard.press('ArrowDown');
+    await expect.poll(() => value('Sheer height at St 4')).toBe(sheerBefore.z + 1 - 10);
+    expect(await value('Sheer half-breadth at St 4')).toBe(sheerBefore.y);
+
+    // Each key was one edit, autosaved like a drag.
+    await page.getByTestId('save-status').getByText('Draft saved').waitFor({ timeout: 15_000 });
+    const { draft } = await apiCall<{ draft: { plan: Plan } | null }>(page, 'GET', `/api/hulls/${hull.id}/plan/draft`);
+    const drafted = draft!.plan.lines.lines;
+    expect(drafted.find((l) => l.id === 'ln-wl-500')!.cells['st-4']).toBe(wlBefore + 11);
+    expect((drafted.find((l) => l.id === 'ln-sheer') as PointLine).cells['st-4']).toEqual({ y: sheerBefore.y, z: sheerBefore.z - 9 });
+
+    // Ctrl+Z takes the key moves back one at a time.
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => value('Sheer height at St 4')).toBe(sheerBefore.z + 1);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => value('Sheer height at St 4')).toBe(sheerBefore.z);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => value('WL 500 at St 4')).toBe(wlBefore + 1);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => value('WL 500 at St 4')).toBe(wlBefore);
+
+    // Escape lets go of the point: the arrows move the drawing again and the point stays.
+    await page.keyboard.press('Escape');
+    await expect.poll(() => said.innerText()).toMatch(/^No point chosen/);
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(async () => (await viewportOf(page)).offsetY).not.toBe(still.offsetY);
+    expect(await value('Sheer height at St 4')).toBe(sheerBefore.z);
+    expect(await value('WL 500 at St 4')).toBe(wlBefore);
+    expect(consoleErrors).toEqual([]);
+  });
+
   it('a helper sees the body plan read-only: a drag on a point changes nothing and saves nothing', async () => {
     const { page, consoleErrors } = await rig.newPage({ width: 1440, height: 1000 });
     await signInThroughForm(page, helper.email, helper.password);
@@ -295,6 +389,19 @@ describe('Drawing in the browser', () => {
     await page.waitForTimeout(500);
     // What the helper dragged was the drawing (a pan), not the point.
     expect(await input.inputValue()).toBe(beforeValue);
+
+    // By key the helper steps to the sheer point and hears it, but the arrows move the drawing, not the point.
+    await page.getByRole('application').first().focus();
+    for (let i = 0; i < 3; i++) await page.keyboard.press('n');
+    const said = page.getByTestId('body-plan-announcement');
+    expect(await said.innerText()).toBe(`Sheer at St 4: half-breadth ${point.y} mm, height ${point.z} mm. Point 3 of 3.`);
+    const panned = await viewportOf(page);
+    await page.keyboard.press('ArrowUp');
+    await page.keyboard.press('Shift+ArrowLeft');
+    await page.waitForTimeout(300);
+    expect(await input.inputValue({ timeout: 5_000 })).toBe(beforeValue);
+    expect(await sideInput(page, 'Sheer height at St 4').inputValue({ timeout: 5_000 })).toBe(String(point.z));
+    expect((await viewportOf(page)).offsetY).not.toBe(panned.offsetY);
     expect(await page.getByRole('button', { name: /^Undo/ }).count()).toBe(0);
     expect(writes).toEqual([]);
     await rig.screenshot(page, 'drawing-05-helper-read-only');

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { hullBuild } from '../../shared/geometry/hull';
 import { hullLinesSchema, type Line } from '../../shared/geometry/hull-schema';
 import { sectionAt } from '../../shared/geometry/section';
-import { bodyPlanSideOf, bodyPlanSides, offsetHandlesAt, offsetOnSection, offsetSnap, referenceLinesOf } from '../../src/features/plan/drawing/body-plan';
+import { bodyPlanSideOf, bodyPlanSides, offsetHandlesAt, offsetHandlesByGirth, offsetNudge, offsetOnSection, offsetSnap, referenceLinesOf } from '../../src/features/plan/drawing/body-plan';
 import { createSectionCache, stationNeighbourhood, stationSectionKey, stationSectionOf } from '../../src/features/plan/drawing/station-section';
 import { offsetDelete, offsetMove, offsetPointOf, offsetValueFor } from '../../src/features/plan/editor/offset-actions';
 import { inventedHull } from '../bench/invented-hull';
@@ -102,6 +102,53 @@ describe('offsetSnap', () => {
   it('pulls a point line point onto another point within the tolerance, else leaves both values free', () => {
     expect(offsetSnap(chine, { y: 398, z: 202 }, { ...base, points: [{ y: 400, z: 200 }] }).value).toEqual({ y: 400, z: 200 });
     expect(offsetSnap(chine, { y: 390, z: 210 }, { ...base, points: [{ y: 400, z: 200 }] }).value).toEqual({ y: 390, z: 210 });
+  });
+});
+
+describe('offsetNudge (an arrow key on a chosen point)', () => {
+  const wl = line(plan(), 'ln-wl');
+  const bt = line(plan(), 'ln-bt');
+  const chine = line(plan(), 'ln-chine');
+  const right = { y: 1, z: 0 };
+  const up = { y: 0, z: 1 };
+
+  it('moves a waterline point across by exactly the step and not at all up, a buttock point up and not across', () => {
+    expect(offsetNudge(wl, { y: 450, z: 300 }, right, 10)).toMatchObject({ value: 460, at: { y: 460, z: 300 } });
+    expect(offsetNudge(wl, { y: 450, z: 300 }, { y: -1, z: 0 }, 1).value).toBe(449);
+    expect(offsetNudge(wl, { y: 450, z: 300 }, up, 10).value).toBe(450);
+    expect(offsetNudge(bt, { y: 200, z: 250 }, up, 1.5875).value).toBeCloseTo(251.5875, 6);
+    expect(offsetNudge(bt, { y: 200, z: 250 }, right, 10).value).toBe(250);
+  });
+
+  it('moves a point line point either way, and stops every offset at the centreline', () => {
+    expect(offsetNudge(chine, { y: 300, z: 250 }, up, 10).value).toEqual({ y: 300, z: 260 });
+    expect(offsetNudge(chine, { y: 300, z: 250 }, right, 10).value).toEqual({ y: 310, z: 250 });
+    expect(offsetNudge(wl, { y: 0.5, z: 300 }, { y: -1, z: 0 }, 1).value).toBe(0);
+    expect(offsetNudge(chine, { y: 0, z: 250 }, { y: -1, z: 0 }, 10).value).toEqual({ y: 0, z: 250 });
+  });
+
+  it('moves a diagonal point a whole step along the diagonal for a slanting arrow (analytic: 45°, 10 mm along from 100)', () => {
+    const from = { y: 100 * Math.SQRT1_2, z: 1000 - 100 * Math.SQRT1_2 };
+    // Right and down both lead outboard along a 45° diagonal that runs out and down; up leads inboard.
+    expect(offsetNudge(diagonal, from, right, 10).value).toBeCloseTo(110, 6);
+    expect(offsetNudge(diagonal, from, { y: 0, z: -1 }, 10).value).toBeCloseTo(110, 6);
+    expect(offsetNudge(diagonal, from, up, 10).value).toBeCloseTo(90, 6);
+    // A level diagonal (angle 0) is square to up: the point stays.
+    const level = { ...diagonal, angle: 0 } as Line;
+    expect(offsetNudge(level, { y: 100, z: 1000 }, up, 10).value).toBeCloseTo(100, 9);
+  });
+});
+
+describe('offsetHandlesByGirth', () => {
+  const handles = offsetHandlesAt(plan().lines, 'st-1');
+
+  it('orders the offsets as the section runs, keel to sheer, table order where lines meet, the rest after', () => {
+    // The table has WL 300, Buttock 200, Chine; this invented section passes the chine, then the buttock and waterline together.
+    const section = { nodes: [{ lineIds: ['ln-chine'] }, { lineIds: ['ln-bt', 'ln-wl'] }] } as never;
+    expect(offsetHandlesByGirth(handles, section).map((h) => h.lineId)).toEqual(['ln-chine', 'ln-wl', 'ln-bt']);
+    const partial = { nodes: [{ lineIds: ['ln-bt'] }] } as never;
+    expect(offsetHandlesByGirth(handles, partial).map((h) => h.lineId)).toEqual(['ln-bt', 'ln-wl', 'ln-chine']);
+    expect(offsetHandlesByGirth(handles, null).map((h) => h.lineId)).toEqual(['ln-wl', 'ln-bt', 'ln-chine']);
   });
 });
 

@@ -30,6 +30,11 @@ export function deviationShort(mm: number, notation: Notation): string {
   return `${sign}${lengthFormat(Math.abs(mm), { ...notation, unit: 'in', precision: '1/32in' }, { unitMark: true })}`;
 }
 
+/** A point of a section: "half-breadth 612 mm, height 790 mm". */
+export function pointWords(p: { y: number; z: number }, notation: Notation): string {
+  return `half-breadth ${lengthWords(p.y, notation)}, height ${lengthWords(p.z, notation)}`;
+}
+
 export function degreesWords(rad: number): string {
   return `${Number(radToDeg(rad).toFixed(1))}°`;
 }
@@ -49,7 +54,7 @@ function valueWords(path: string, value: unknown, notation: Notation): string {
   if (Array.isArray(value)) return value.length === 0 ? 'none' : `${value.length} item${value.length === 1 ? '' : 's'}`;
   const object = value as Record<string, unknown>;
   if (typeof object.y === 'number' && typeof object.z === 'number' && Object.keys(object).length === 2) {
-    return `half-breadth ${lengthWords(object.y, notation)}, height ${lengthWords(object.z, notation)}`;
+    return pointWords({ y: object.y, z: object.z }, notation);
   }
   if (typeof object.name === 'string') {
     const where = typeof object.x === 'number' ? ` at x ${lengthWords(object.x, notation)}` : '';

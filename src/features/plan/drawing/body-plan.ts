@@ -156,6 +156,42 @@ export function offsetSnap(line: Line, to: SectionPlanePoint, options: SnapOptio
   return result(offsetValueFor(line, onLine(want), options.stepMm), null);
 }
 
+/** Snapping options that snap to nothing: the point goes exactly where it is pushed (on its line's direction). */
+const NO_SNAP: SnapOptions = { gridMm: null, points: [], toleranceMm: 0, stepMm: 0 };
+
+/**
+ * Where an offset goes when a key pushes it one step (mm) toward `toward` (a unit direction in the section
+ * plane): the drag's own rule (`offsetSnap`) takes the push onto the line's direction, and a push at a
+ * slant to that direction (an arrow key on a diagonal point) is lengthened to a whole step along it. A push
+ * square to the direction (up on a waterline point) leaves the point where it is, as does the centreline.
+ */
+export function offsetNudge(line: Line, at: SectionPlanePoint, toward: SectionPlanePoint, stepMm: number): SnapResult {
+  const first = offsetSnap(line, { y: at.y + toward.y * stepMm, z: at.z + toward.z * stepMm }, NO_SNAP);
+  const moved = Math.hypot(first.at.y - at.y, first.at.z - at.z);
+  if (moved < 1e-9 || Math.abs(moved - stepMm) < 1e-9) return first;
+  const k = stepMm / moved;
+  return offsetSnap(line, { y: at.y + (first.at.y - at.y) * k, z: at.z + (first.at.z - at.z) * k }, NO_SNAP);
+}
+
+/**
+ * A station's offsets in girth order, keel to sheer, as its section's points run (lines crossing at one
+ * point keep the table's order among them); offsets the section does not pass through, or all of them
+ * when there is no section, follow in the table's order.
+ */
+export function offsetHandlesByGirth(handles: readonly OffsetHandle[], section: Pick<Section, 'nodes'> | null): OffsetHandle[] {
+  const place = new Map<string, number>();
+  section?.nodes.forEach((node, i) => {
+    for (const id of node.lineIds) if (!place.has(id)) place.set(id, i);
+  });
+  return handles
+    .map((handle, i) => ({ handle, i, girth: place.get(handle.lineId) ?? Infinity }))
+    .sort((a, b) => (a.girth === b.girth ? a.i - b.i : a.girth - b.girth))
+    .map((h) => h.handle);
+}
+
+/** What an offset's cell measures, as the side table and the drawing's announcements word it; a point line's cell is two lengths. */
+export const OFFSET_MEASURE_WORDS: Record<Line['kind'], string> = { waterline: 'half-breadth', buttock: 'height', diagonal: 'along the diagonal', point: '' };
+
 /** A reference line of the body plan in drawing mm (both sides of the centreline). */
 export interface ReferenceLine {
   lineId: string;

@@ -4,14 +4,14 @@ import type Konva from 'konva';
 import { Circle, Group, Line, Rect, RegularPolygon } from 'react-konva';
 import { Grid3x3, Magnet } from 'lucide-react';
 import type { BuiltHull } from '../../../../../shared/geometry/hull';
-import type { HullLines } from '../../../../../shared/geometry/hull-schema';
+import type { HullLines, Line as HullLine } from '../../../../../shared/geometry/hull-schema';
 import type { Plan } from '../../../../../shared/geometry/plan-schema';
 import type { Notation } from '../../../../../shared/geometry/notation-schema';
 import { lengthPrecisionStepMm } from '../../../../../shared/geometry/notation';
 import type { Section } from '../../../../../shared/geometry/section';
 import { Button } from '../../../../components/ui/button';
 import { cellSet, type CellValue } from '../../editor/cell-actions';
-import { offsetDelete, offsetMove, offsetPointOf, type SectionPlanePoint } from '../../editor/offset-actions';
+import { offsetDelete, offsetFreedomOf, offsetMove, offsetPointOf, type OffsetFreedom, type SectionPlanePoint } from '../../editor/offset-actions';
 import type { Edit } from '../../editor/types';
 import { edit } from '../../editor/types';
 import type { CellFlag } from '../../hooks/use-lines-check';
@@ -19,7 +19,10 @@ import {
   bodyPlanBounds,
   bodyPlanSides,
   drawingPointOf,
+  OFFSET_MEASURE_WORDS,
   offsetHandlesAt,
+  offsetHandlesByGirth,
+  offsetNudge,
   offsetPointsOf,
   offsetSnap,
   referenceLinesOf,
@@ -33,7 +36,7 @@ import type { LivePartAsk } from '../../drawing/live-part.worker';
 import { draggedPartOutlines, livePartCache, livePartDue, livePartOutlinesOf, outlinesHalfBreadth, partsAtStation, REST_MS, type LivePartOutline } from '../../drawing/live-part';
 import { createSectionCache, stationSectionOf } from '../../drawing/station-section';
 import { toHull, toScreen, type Point, type Viewport } from '../../drawing/viewport';
-import { lengthWords } from '../../format';
+import { lengthWords, pointWords } from '../../format';
 import { DrawingStage } from './drawing-stage';
 import { KonvaLabel } from './konva-label';
 
@@ -73,6 +76,30 @@ const SNAP_PX = 8;
 const CLICK_SLOP_PX = 3;
 /** Grid spacings offered (mm), the first the default: 10 mm, or about 1/2 in for an imperial hull. */
 const GRID_MM = { mm: 10, in: 12.7, ftin: 12.7 } as const;
+/** One arrow key's move of a chosen point without the grid (mm): 1 mm, or 1/16 in for an imperial hull. */
+const KEY_STEP_MM = { mm: 1, in: 25.4 / 16, ftin: 25.4 / 16 } as const;
+/** Steps a Shift+arrow moves a point. */
+const SHIFT_STEPS = 10;
+/** Arrow keys as directions on the drawing (x to the right, y up). */
+const ARROWS: Record<string, Point> = { ArrowLeft: { x: -1, y: 0 }, ArrowRight: { x: 1, y: 0 }, ArrowUp: { x: 0, y: 1 }, ArrowDown: { x: 0, y: -1 } };
+/** The ring round the point the keys act on: the app's focus colour on a white halo, as a focused control has. */
+const FOCUS = '#0e5466';
+const FOCUS_RING_PX = HANDLE_RADIUS_PX + 7;
+const POINT_KEYS_READ_ONLY = 'N and P step through the chosen section\'s points and read them out; Escape lets go of the point.';
+const POINT_KEYS = 'N and P step through the chosen section\'s points; the arrow keys then move the point, Shift ten steps at a time; Delete takes it out; Escape lets go of it.';
+const FREEDOM_WORDS: Record<OffsetFreedom, string> = { across: 'across only', up: 'up and down only', along: 'along its diagonal only', free: 'anywhere this side of the centreline' };
+
+/** An offset read out: "WL 300 at St 4: half-breadth 612 mm". */
+function offsetWords(line: HullLine, stationName: string, value: CellValue | undefined, notation: Notation): string {
+  const words = value == null ? 'no point' : typeof value === 'number' ? `${OFFSET_MEASURE_WORDS[line.kind]} ${lengthWords(value, notation)}` : pointWords(value, notation);
+  return `${line.name} at ${stationName}: ${words}`;
+}
+
+/** The move one arrow key makes of a point (mm): the snap grid's spacing when it is on, else a small step no finer than the hull's precision. */
+function keyStepMm(notation: Notation, grid: boolean, shift: boolean): number {
+  const one = grid ? GRID_MM[notation.unit] : Math.max(KEY_STEP_MM[notation.unit], lengthPrecisionStepMm(notation));
+  return shift ? one * SHIFT_STEPS : one;
+}
 
 /** A worker for the dragged part where the browser has them; null where it has not (the component tests' DOM). */
 function startPartWorker(): Worker | null {
@@ -126,6 +153,8 @@ interface Preview {
   section: Section | null;
 }
 
+const cellOf = (line: HullLine, stationId: string): CellValue | undefined => (line.cells as Record<string, CellValue | undefined>)[stationId];
+
 /** The section, unless a point of it is not a finite number (nothing is drawn at NaN). */
 function drawable(section: Section | null): Section | null {
   return section && section.vertices.every((v) => Number.isFinite(v.y) && Number.isFinite(v.z)) ? section : null;
@@ -175,6 +204,16 @@ const SectionShape = memo(function SectionShape({
   );
 });
 
+/** The point the keys act on, ringed as a focused control is: a white halo under the focus colour. */
+function FocusRing({ at }: { at: Point }) {
+  return (
+    <>
+      <Circle x={at.x} y={at.y} radius={FOCUS_RING_PX} stroke="#ffffff" strokeWidth={7} listening={false} />
+      <Circle x={at.x} y={at.y} radius={FOCUS_RING_PX} stroke={FOCUS} strokeWidth={3} listening={false} />
+    </>
+  );
+}
+
 /**
  * The part's cut outline over the dragged station, outer edge solid and inner edge dashed, on the station's
  * side as its section is (a frame is symmetric, so the mirror for an aft station is the same part). Kept
@@ -219,6 +258,8 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
   const [snapGrid, setSnapGrid] = useState(false);
   const [snapPoints, setSnapPoints] = useState(true);
   const [preview, setPreview] = useState<Preview | null>(null);
+  /** What the keys last did, read out politely (the chosen point and its value). */
+  const [announcement, setAnnouncement] = useState('');
   const drag = useRef<Drag | null>(null);
   const viewRef = useRef<Viewport | null>(null);
   const groupRef = useRef<Konva.Group>(null);
@@ -405,13 +446,16 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
     const final = commit && e && d.moved ? moveTo(d, e.clientX, e.clientY) : null;
     setPreview(null);
     setLivePart(null);
-    if (final) {
-      const { plan: current, onEdit: apply } = latest.current;
-      const line = current.lines.lines.find((l) => l.id === final.lineId);
-      const station = current.lines.stations.find((s) => s.id === final.stationId);
-      // The point as drawn last, already on its line's direction: the edit puts the same value in the cell.
-      if (line && station) apply(edit(`Move ${line.name} at ${station.name}`, offsetMove, { lineId: line.id, stationId: station.id, to: final.at }));
-    }
+    // The point as drawn last, already on its line's direction: the edit puts the same value in the cell.
+    if (final) commitMove(final.lineId, final.stationId, final.at);
+  }
+
+  /** One undoable edit moving an offset to `at` (mm, on its line's direction): the end of a drag, or one arrow key. */
+  function commitMove(lineId: string, stationId: string, at: SectionPlanePoint) {
+    const { plan: current, onEdit: apply } = latest.current;
+    const line = current.lines.lines.find((l) => l.id === lineId);
+    const station = current.lines.stations.find((s) => s.id === stationId);
+    if (line && station) apply(edit(`Move ${line.name} at ${station.name}`, offsetMove, { lineId: line.id, stationId: station.id, to: at }));
   }
 
   function startDrag(handle: OffsetHandle, side: 'forward' | 'aft', e: Konva.KonvaEventObject<PointerEvent>) {
@@ -448,7 +492,7 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
       for (const [key, flag] of byCell) {
         const at = key.lastIndexOf(':');
         const sid = key.slice(0, at);
-        const p = offsetPointOf(line, (line.cells as Record<string, CellValue | undefined>)[sid]);
+        const p = offsetPointOf(line, cellOf(line, sid));
         const side = sides.get(sid);
         if (!p || !side) continue;
         for (const s of sidesOf(side)) out.push({ key: `${lineId}:${key}:${s}`, at: drawingPointOf(p, s), words: flag.message });
@@ -476,16 +520,57 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
     </>
   );
 
-  // Delete (or Backspace) with the drawing focused takes the chosen point out of its section.
-  const onDrawingKey = (e: ReactKeyboardEvent<HTMLDivElement>) => {
-    if (readOnly || !selection?.lineId || (e.key !== 'Delete' && e.key !== 'Backspace')) return;
-    if ((e.target as HTMLElement).getAttribute('role') !== 'application') return;
-    const line = lines.lines.find((l) => l.id === selection.lineId);
-    const station = lines.stations.find((s) => s.id === selection.stationId);
-    if (!line || !station) return;
-    e.preventDefault();
-    onEdit(edit(`Delete ${line.name} at ${station.name}`, offsetDelete, { lineId: line.id, stationId: station.id }));
-    onSelect({ stationId: station.id, lineId: null });
+  // The drawing's own keys (the stage asks these first): N and P step through the chosen station's points in
+  // girth order; with a point chosen the arrows move it along its line's direction (Shift ten steps), Delete
+  // takes it out and Escape lets go of it, so the arrows move the drawing again. A reader only steps and hears.
+  const onViewKey = (e: ReactKeyboardEvent<HTMLDivElement>): boolean => {
+    // During a drag the pointer has the point (Escape cancels the drag through the window's listener).
+    if (drag.current) return false;
+    const station = lines.stations.find((s) => s.id === stationId);
+    if (!station) return false;
+    const key = e.key.length === 1 ? e.key.toLowerCase() : e.key;
+    const chosenLine = lines.lines.find((l) => l.id === selection?.lineId);
+    if (key === 'n' || key === 'p') {
+      const inOrder = offsetHandlesByGirth(offsetHandlesAt(lines, station.id), sections.get(station.id) ?? null);
+      if (inOrder.length === 0) {
+        setAnnouncement(`${station.name} has no points to step through.`);
+        return true;
+      }
+      const at = inOrder.findIndex((h) => h.lineId === chosenLine?.id);
+      const next = at < 0 ? (key === 'n' ? 0 : inOrder.length - 1) : (at + (key === 'n' ? 1 : -1) + inOrder.length) % inOrder.length;
+      const handle = inOrder[next]!;
+      const line = lines.lines.find((l) => l.id === handle.lineId)!;
+      onSelect({ stationId: station.id, lineId: line.id });
+      setAnnouncement(`${offsetWords(line, station.name, cellOf(line, station.id), notation)}. Point ${next + 1} of ${inOrder.length}.`);
+      return true;
+    }
+    if (key === 'Escape') {
+      if (chosenLine) {
+        onSelect({ stationId: station.id, lineId: null });
+        setAnnouncement('No point chosen: the arrow keys move the drawing.');
+      }
+      // Not taken: the stage clears a measurement with it too.
+      return false;
+    }
+    if (readOnly || !chosenLine) return false;
+    if (key === 'Delete' || key === 'Backspace') {
+      onEdit(edit(`Delete ${chosenLine.name} at ${station.name}`, offsetDelete, { lineId: chosenLine.id, stationId: station.id }));
+      onSelect({ stationId: station.id, lineId: null });
+      setAnnouncement(`${chosenLine.name} at ${station.name} taken out.`);
+      return true;
+    }
+    const arrow = ARROWS[key];
+    const from = offsetPointOf(chosenLine, cellOf(chosenLine, station.id));
+    // An arrow with no point there (a chosen empty cell) moves the drawing.
+    if (!arrow || !from) return false;
+    const moved = offsetNudge(chosenLine, from, sectionPointOf(arrow, handleSide), keyStepMm(notation, snapGrid, e.shiftKey));
+    if (Math.hypot(moved.at.y - from.y, moved.at.z - from.z) < 1e-9) {
+      setAnnouncement(`${offsetWords(chosenLine, station.name, cellOf(chosenLine, station.id), notation)}; it moves ${FREEDOM_WORDS[offsetFreedomOf(chosenLine)]}.`);
+      return true;
+    }
+    commitMove(chosenLine.id, station.id, moved.at);
+    setAnnouncement(offsetWords(chosenLine, station.name, moved.value, notation));
+    return true;
   };
 
   const draggingId = preview?.stationId ?? null;
@@ -536,6 +621,7 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
   // The widest half-breadth of the part at the chosen station, as dragged or as it stands, for the browser test to read.
   const partHalfBreadth = outlinesHalfBreadth(shownPart?.outlines ?? restOutlines);
 
+  const chosenHandle = handles.find((h) => h.lineId === selection?.lineId) ?? null;
   const drawOverlay = (view: Viewport) => {
     viewRef.current = view;
     return (
@@ -562,15 +648,28 @@ export function BodyPlanView({ plan, hull, readOnly, notation, selection, onSele
             />
           );
         })}
+        {chosenHandle && <FocusRing at={toScreen(view, drawingPointOf(chosenHandle.at, handleSide))} />}
       </Group>
     );
   };
 
   return (
-    <div data-testid="body-plan" data-dragging={preview ? 'true' : undefined} data-part-half-breadth={partHalfBreadth === null ? undefined : partHalfBreadth.toFixed(3)} onKeyDown={onDrawingKey}>
-      <DrawingStage bounds={bounds} notation={notation} label="Body plan" toolbarExtra={toolbarExtra} pointerWords={pointerWords} overlay={drawOverlay}>
+    <div data-testid="body-plan" data-dragging={preview ? 'true' : undefined} data-part-half-breadth={partHalfBreadth === null ? undefined : partHalfBreadth.toFixed(3)}>
+      <DrawingStage
+        bounds={bounds}
+        notation={notation}
+        label="Body plan"
+        toolbarExtra={toolbarExtra}
+        pointerWords={pointerWords}
+        overlay={drawOverlay}
+        onViewKey={onViewKey}
+        viewKeyWords={readOnly ? POINT_KEYS_READ_ONLY : POINT_KEYS}
+      >
         {drawStatic}
       </DrawingStage>
+      <p className="sr-only" aria-live="polite" aria-atomic="true" data-testid="body-plan-announcement">
+        {announcement}
+      </p>
       {stationHasParts && !readOnly && (
         // Always there when the station has a part, so the page does not shift when a drag starts.
         <p className="mt-2 flex items-center gap-2 text-sm">

@@ -100,14 +100,16 @@ export function DrawingScreen() {
         <h2 className="text-2xl font-bold">Drawing</h2>
         {!canEditLines ? (
           <Alert tone="info" title="Read only">
-            As a helper on this hull you can look at the drawings, pan, zoom and measure, but not change the lines or the parts.
+            As a helper on this hull you can look at the drawings, pan, zoom and measure, but not change the lines or the parts. In the body plan, with the drawing focused, N and P
+            step through the chosen section's points and read each one out.
           </Alert>
         ) : (
           <p className="flex max-w-prose items-start gap-2 text-muted">
             <Hand aria-hidden="true" className="mt-0.5 size-5 shrink-0" />
             <span>
               Pick a section to work on, then drag its points: a waterline point moves across, a buttock point up and down, a diagonal point along its diagonal, a sheer, chine or
-              keel point anywhere. Click a point and press Delete to take it out. Drag the background to move the drawing, the wheel zooms. Ctrl+Z undoes.
+              keel point anywhere. Click a point and press Delete to take it out. Drag the background to move the drawing, the wheel zooms. Ctrl+Z undoes. From the keyboard: focus the
+              drawing, N and P step through the section's points, the arrow keys move the chosen point one step the way it may go (Shift ten steps), Escape lets go of it.
             </span>
           </p>
         )}

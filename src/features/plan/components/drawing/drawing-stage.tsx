@@ -31,6 +31,13 @@ export interface DrawingStageProps {
   axisNames?: { x: string; y: string };
   /** The read-out for the hull point under the pointer, when the view words it its own way. */
   pointerWords?: (p: Point) => string;
+  /**
+   * The view's own keys, asked before the stage's: true when the view took the key (an arrow moving a
+   * chosen point rather than the drawing), so the stage leaves it alone.
+   */
+  onViewKey?: (e: ReactKeyboardEvent<HTMLDivElement>) => boolean;
+  /** The view's keys in words, added to the drawing's accessible name. */
+  viewKeyWords?: string;
 }
 
 const FIT_MARGIN_PX = 32;
@@ -78,7 +85,7 @@ interface Measure {
  * sized to its container that pans and zooms with wheel, trackpad, pointer and keys, a read-out of the hull
  * position under the pointer and a measure tool. The view draws its shapes for the viewport it is given.
  */
-export function DrawingStage({ bounds, notation, label, height, yScale = 1, children, overlay, toolbarExtra, axisNames = { x: 'Across', y: 'Height' }, pointerWords }: DrawingStageProps) {
+export function DrawingStage({ bounds, notation, label, height, yScale = 1, children, overlay, toolbarExtra, axisNames = { x: 'Across', y: 'Height' }, pointerWords, onViewKey, viewKeyWords }: DrawingStageProps) {
   const boxRef = useRef<HTMLDivElement>(null);
   const stageRef = useRef<Konva.Stage>(null);
   const [size, setSize] = useState({ width: 0, height: height ?? MIN_HEIGHT_PX });
@@ -229,6 +236,10 @@ export function DrawingStage({ bounds, notation, label, height, yScale = 1, chil
 
   const onKeyDown = (e: ReactKeyboardEvent<HTMLDivElement>) => {
     if (e.ctrlKey || e.metaKey || e.altKey) return; // Ctrl+Z and friends belong to the screen
+    if (onViewKey?.(e)) {
+      e.preventDefault();
+      return;
+    }
     const step = (e.shiftKey ? 3 : 1) * PAN_STEP_SHARE;
     const keys: Record<string, () => void> = {
       '+': () => zoomBy(ZOOM_STEP),
@@ -296,7 +307,7 @@ export function DrawingStage({ bounds, notation, label, height, yScale = 1, chil
         tabIndex={0}
         role="application"
         aria-roledescription="drawing"
-        aria-label={`${label}. Plus and minus zoom, 0 fits, arrow keys move the drawing.`}
+        aria-label={`${label}. Plus and minus zoom, 0 fits, arrow keys move the drawing.${viewKeyWords ? ` ${viewKeyWords}` : ''}`}
         className={`relative w-full touch-none overflow-hidden rounded-xl border-2 border-edge bg-white outline-none focus-visible:ring-4 focus-visible:ring-primary ${measuring ? 'cursor-crosshair' : ''}`}
         style={{ height: size.height }}
         onPointerDown={onPointerDown}

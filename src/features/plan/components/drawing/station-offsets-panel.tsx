@@ -11,11 +11,9 @@ import { offsetDelete } from '../../editor/offset-actions';
 import { stationMove } from '../../editor/station-actions';
 import { edit, type CellField } from '../../editor/types';
 import { useEditor, usePlanEditor } from '../../hooks/use-plan-editor';
-import { offsetOnSection, stationsInOrder } from '../../drawing/body-plan';
+import { OFFSET_MEASURE_WORDS, offsetOnSection, stationsInOrder } from '../../drawing/body-plan';
 import { lengthInputMode } from '../../length-field';
 import type { OffsetSelection } from './body-plan-view';
-
-const measureWords: Record<Line['kind'], string> = { waterline: 'half-breadth', buttock: 'height', diagonal: 'along the diagonal', point: '' };
 
 const inputClass = 'min-h-12 w-full min-w-0 rounded-lg border-2 bg-surface px-2 font-mono text-base read-only:bg-paper';
 
@@ -153,7 +151,7 @@ export function StationOffsetsPanel({ selection, onSelect, section, readOnly, no
                 <tr key={line.id} className={`border-b border-rule align-top ${chosen ? 'bg-primary-soft' : ''}`} data-line-id={line.id}>
                   <th scope="row" className="py-1 pr-2 text-left font-semibold">
                     {line.name}
-                    {measureWords[line.kind] && <span className="block text-sm font-normal text-muted">{measureWords[line.kind]}</span>}
+                    {OFFSET_MEASURE_WORDS[line.kind] && <span className="block text-sm font-normal text-muted">{OFFSET_MEASURE_WORDS[line.kind]}</span>}
                   </th>
                   <td className="py-1 pr-2">
                     <div className={line.kind === 'point' ? 'grid grid-cols-2 gap-1' : ''}>
