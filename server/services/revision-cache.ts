@@ -16,14 +16,18 @@ let bytes = 0;
 
 const sizeOf = (e: CachedRevision) => e.metaJson.length + e.planJson.length;
 
-export function revisionCacheGet(id: number): CachedRevision | undefined {
-  const hit = entries.get(id);
-  if (hit) {
-    // Re-insert: a Map iterates in insertion order, so the first key is the least recently used.
-    entries.delete(id);
-    entries.set(id, hit);
+/** The entry under `id`, moved to the back: a Map iterates in insertion order, so its first key is the least recently used. */
+function touched<V>(map: Map<number, V>, id: number): V | undefined {
+  const hit = map.get(id);
+  if (hit !== undefined) {
+    map.delete(id);
+    map.set(id, hit);
   }
   return hit;
+}
+
+export function revisionCacheGet(id: number): CachedRevision | undefined {
+  return touched(entries, id);
 }
 
 export function revisionCachePut(id: number, entry: CachedRevision) {
@@ -47,12 +51,7 @@ const PARSED_MAX = 64;
 const parsed = new Map<number, unknown>();
 
 export function revisionPlanGet(id: number): unknown {
-  const hit = parsed.get(id);
-  if (hit !== undefined) {
-    parsed.delete(id);
-    parsed.set(id, hit);
-  }
-  return hit;
+  return touched(parsed, id);
 }
 
 /** Keep `plan` (frozen here, in place) as the parsed document of revision `id`. */

@@ -1,3 +1,4 @@
+import { lastOf } from './arrays';
 import { vectorLength } from './vector';
 import { type Shape, polygonBounds, polygonSignedArea, shapeBoolean } from './polygon';
 import type { SectionPoint } from './types';
@@ -189,8 +190,7 @@ function bitten(loop: readonly SectionPoint[], bites: readonly Bite[]): SectionP
   const out: SectionPoint[] = [];
   const push = (p: SectionPoint): void => {
     // A bite entered or left exactly at a vertex gives that point twice: once is enough.
-    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
-    const q = out.length > 0 ? out[out.length - 1] : undefined;
+    const q = lastOf(out);
     if (!q || q.y !== p.y || q.z !== p.z) out.push(p);
   };
   for (let b = 0; b < order.length; b++) {

@@ -1,3 +1,4 @@
+import { lastOf } from './arrays';
 import { vectorLength } from './vector';
 import type { Limber, Opening } from './part-schema';
 import { type GirthEdge, girthPoints } from './pieces';
@@ -78,8 +79,7 @@ export function roundedRectLoop(centre: SectionPoint, widthMm: number, heightMm:
   for (const [cy, cz, a0] of corners) {
     const arc = arcPoints({ y: centre.y + cy, z: centre.z + cz }, r, a0, Math.PI / 2, toleranceMm);
     for (const p of arc) {
-      // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
-      const q = out.length > 0 ? out[out.length - 1] : undefined;
+      const q = lastOf(out);
       if (!q || vectorLength(q.y - p.y, q.z - p.z) > 1e-9) out.push(p);
     }
   }

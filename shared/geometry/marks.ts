@@ -1,3 +1,4 @@
+import { lastOf } from './arrays';
 import { type FrameSiding, bevelMarkOf, bevelSummaryOf } from './bevel';
 import type { EdgePoint } from './edge';
 import type { CheckDimension, PartBevelMark, PartCut, PartLevelLine, PartRegion, PartSide, PartTemplateMarks } from './frame-types';
@@ -38,8 +39,7 @@ export function bevelMarksAlong(runs: readonly ContactRun[], frame: FrameSiding,
       if (insideLoop(cutters[k]!, p)) return;
     }
     const m = bevelMarkOf(p, frame);
-    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
-    const last = out.length > 0 ? out[out.length - 1] : undefined;
+    const last = lastOf(out);
     const g = side === 'port' ? negated(m.girthMm) : m.girthMm;
     if (last && last.side === side && last.edge === m.edge && Math.abs(last.girthMm - g) < 1e-9 && last.bevel === m.bevel) return;
     // Field by field (an overriding spread is V8's slow path); + 0 turns a -0 (a normal straight up on the

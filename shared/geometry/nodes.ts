@@ -1,3 +1,4 @@
+import { lastOf } from './arrays';
 import { vectorLength } from './vector';
 import { type FittedLine, lineKnuckleAt, linePointAt } from './lines';
 import { POINT_TOLERANCE_MM } from './types';
@@ -85,8 +86,7 @@ export function sectionNodesAt(
   let sheer = -1;
   const tol2 = mergeToleranceMm * mergeToleranceMm;
   for (const { p } of keyed) {
-    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
-    const last = all.length > 0 ? all[all.length - 1] : undefined;
+    const last = lastOf(all);
     if (last && (last.y - p.y) ** 2 + (last.z - p.z) ** 2 <= tol2) {
       const k = all.length - 1;
       if (p.knuckle && !last.knuckle) {

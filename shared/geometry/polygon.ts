@@ -1,3 +1,4 @@
+import { lastOf } from './arrays';
 // @ts-expect-error clipper-lib 6.4.2 publishes no type declarations; the few calls used are typed below.
 import ClipperLibUntyped from 'clipper-lib';
 import { vectorLength } from './vector';
@@ -276,8 +277,7 @@ function loopSegments(loop: Loop, tol: number, c: Segs, at: number): number {
 function dedupe(loop: Loop, tol: number): SectionPoint[] {
   const out: SectionPoint[] = [];
   for (const p of loop) {
-    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
-    const q = out.length > 0 ? out[out.length - 1] : undefined;
+    const q = lastOf(out);
     if (!q || vectorLength(p.y - q.y, p.z - q.z) > tol) out.push(p);
   }
   while (out.length > 1 && vectorLength(out[0]!.y - out[out.length - 1]!.y, out[0]!.z - out[out.length - 1]!.z) <= tol) out.pop();

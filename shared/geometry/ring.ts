@@ -1,3 +1,4 @@
+import { lastOf } from './arrays';
 import { vectorLength } from './vector';
 import type { EdgePoint } from './edge';
 import { arcPoints } from './holes';
@@ -367,8 +368,7 @@ export function ringInnerEdge(half: readonly EdgePoint[], spec: RingSpec, tolera
   joins.push(tail);
   const edge: SectionPoint[] = [];
   const push = (p: SectionPoint): void => {
-    // Not [-1] on the empty array: a negative index is a named lookup, and V8 then treats this load as megamorphic for every point.
-    const q = edge.length > 0 ? edge[edge.length - 1] : undefined;
+    const q = lastOf(edge);
     if (!q || Math.abs(q.y - p.y) > 1e-9 || Math.abs(q.z - p.z) > 1e-9) edge.push({ y: p.y, z: p.z });
   };
   for (let k = 0; k < inner.length; k++) {

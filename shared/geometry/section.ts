@@ -1,5 +1,5 @@
 import { vectorLength } from './vector';
-import { type CubicSegment, curveFlattenParams, curveFromHermite, curveScalarAt } from './curve';
+import { type CubicSegment, curveDerivativeAt, curveFlattenParams, curveFromHermite, curvePointAt, curveScalarAt } from './curve';
 import type { BuiltHull } from './hull';
 import { SECTION_MERGE_TOLERANCE_MM, type SectionNode, sectionNodesAt } from './nodes';
 import { type SplineEnd, splineMonotoneSlopes, splineSlopesSolve } from './spline';
@@ -195,20 +195,8 @@ function flatten(nodes: readonly SectionNode[], segments: readonly SectionSegmen
   let pz = 0;
   const emit = (j: number, t: number, corner: boolean): void => {
     const s = segments[j]!;
-    // curvePointAt and curveDerivativeAt written out (the same sums in the same order): two objects fewer for
-    // every vertex of every section.
-    const u = 1 - t;
-    const w0 = u * u * u;
-    const w1 = 3 * u * u * t;
-    const w2 = 3 * u * t * t;
-    const w3 = t * t * t;
-    const y = w0 * s.p0.y + w1 * s.p1.y + w2 * s.p2.y + w3 * s.p3.y;
-    const z = w0 * s.p0.z + w1 * s.p1.z + w2 * s.p2.z + w3 * s.p3.z;
-    const d0 = 3 * u * u;
-    const d1 = 6 * u * t;
-    const d2 = 3 * t * t;
-    let dy = d0 * (s.p1.y - s.p0.y) + d1 * (s.p2.y - s.p1.y) + d2 * (s.p3.y - s.p2.y);
-    let dz = d0 * (s.p1.z - s.p0.z) + d1 * (s.p2.z - s.p1.z) + d2 * (s.p3.z - s.p2.z);
+    const { y, z } = curvePointAt(s, t);
+    let { y: dy, z: dz } = curveDerivativeAt(s, t);
     let len = vectorLength(dy, dz);
     if (len < 1e-12) {
       dy = s.p3.y - s.p0.y;
