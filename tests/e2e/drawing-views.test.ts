@@ -75,13 +75,13 @@ describe('Drawing views in the browser', () => {
     await line.waitFor();
     await line.selectOption({ label: 'Chine in profile (heights)' });
     await page.getByRole('button', { name: 'Heights 20 times' }).click();
-    const v = await fittedViewport(page);
-    expect(v.yScale).toBe(20);
+    // The stage takes the new scale on its next render: asked until it has it.
+    await expect.poll(async () => (await fittedViewport(page)).yScale).toBe(20);
     await page.getByRole('status').filter({ hasText: /Chine/ }).first().waitFor();
     await rig.screenshot(page, 'drawing-views-05-fairing-chine-profile-x20');
     await line.selectOption({ label: 'Sheer in plan (half-breadths)' });
     await page.getByRole('button', { name: 'Heights 5 times' }).click();
-    expect((await fittedViewport(page)).yScale).toBe(5);
+    await expect.poll(async () => (await fittedViewport(page)).yScale).toBe(5);
     await rig.screenshot(page, 'drawing-views-06-fairing-sheer-plan-x5');
     expect(errors).toEqual([]);
     await context.close();
